@@ -1,0 +1,67 @@
+// The one solve path: floating-point search, exact certification and repair, exact fallback.
+#pragma once
+
+#include "plumb/certificate/certificate.hpp"
+#include "plumb/model/model.hpp"
+#include "plumb/run/budget.hpp"
+#include "plumb/simplex/basis.hpp"
+
+#include <functional>
+#include <string>
+#include <vector>
+
+namespace plumb::exact {
+
+using numeric::Rational;
+
+enum class Method {
+  hybrid,  // float simplex finds a basis, exact arithmetic certifies and repairs it (default)
+  exact,   // rational simplex from the start
+};
+
+enum class Outcome { optimal, infeasible, unbounded, stopped };
+
+// A snapshot for the live progress line.
+struct Progress {
+  std::string phase;  // e.g. "float dual", "exact repair"
+  long iterations = 0;
+  double objective = 0;
+  double infeasibility = 0;
+  double elapsed_seconds = 0;
+};
+
+struct SolveOptions {
+  Method method = Method::hybrid;
+  run::Budget* budget = nullptr;                 // no limits when null
+  const simplex::Basis* warm_start = nullptr;    // start from this basis when given
+  std::function<void(const Progress&)> progress;  // called now and then when set
+};
+
+struct SolveStats {
+  double float_seconds = 0;
+  double certify_seconds = 0;
+  double exact_seconds = 0;
+  long float_iterations = 0;
+  long exact_iterations = 0;
+  bool repaired = false;       // the float basis needed exact pivots
+  bool fell_back = false;      // the float phase failed and the exact engine solved from scratch
+};
+
+// Values are in the minimisation form of docs/certificates.md (c' = c, or -c when maximising).
+struct Solution {
+  Outcome outcome = Outcome::stopped;
+  std::vector<Rational> x;    // optimal, unbounded: a feasible point (one per column)
+  std::vector<Rational> y;    // optimal: row multipliers; infeasible: Farkas multipliers (one per row)
+  std::vector<Rational> ray;  // unbounded: an improving ray (one per column)
+  Rational objective = 0;     // optimal: the model's objective at x, its sense and constant
+  simplex::Basis basis;       // the final basis, for warm starts
+  SolveStats stats;
+  run::StopReason stop_reason = run::StopReason::none;
+};
+
+Solution solve(const model::Model& model, const SolveOptions& options = {});
+
+// The certificate proving a solution's outcome (not for Outcome::stopped).
+certificate::Certificate make_certificate(const model::Model& model, const Solution& solution);
+
+}  // namespace plumb::exact

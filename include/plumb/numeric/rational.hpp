@@ -1,0 +1,49 @@
+// Exact rational numbers: the one number type every input and result goes through.
+#pragma once
+
+#include <boost/multiprecision/gmp.hpp>
+
+#include <optional>
+#include <string>
+#include <string_view>
+
+namespace plumb::numeric {
+
+using Rational = boost::multiprecision::mpq_rational;
+using Integer = boost::multiprecision::mpz_int;
+
+// Why a number's text was refused; `expected` is a phrase fit for "expected ...".
+struct ParseFailure {
+  std::string reason;
+};
+
+// Decimal text exactly as written: [+-]digits[.digits][(e|E)[+-]digits], ".5" and "1." included.
+// Never goes through double.  Exponents beyond +-max_decimal_exponent are refused, so a
+// hostile "1e999999999" cannot exhaust memory.
+constexpr long max_decimal_exponent = 100000;
+std::optional<Rational> parse_decimal(std::string_view text, ParseFailure* why = nullptr);
+
+// A decimal as above, or a fraction "p/q" of two decimals (q != 0), as the native format allows.
+std::optional<Rational> parse_number(std::string_view text, ParseFailure* why = nullptr);
+
+// Canonical fraction text "-?[0-9]+(/[0-9]+)?": lowest terms, positive denominator.
+std::string to_fraction(const Rational& value);
+
+// Strict inverse of to_fraction: accepts only canonical text, at most max_digits digits in all.
+std::optional<Rational> parse_canonical_fraction(std::string_view text, std::size_t max_digits,
+                                                 ParseFailure* why = nullptr);
+
+// A decimal rendering with at most `significant` significant digits.
+struct Decimal {
+  std::string text;  // e.g. "-464.753142857", "1.2e+30"
+  bool rounded;      // true when text is not exactly the value
+};
+Decimal to_decimal(const Rational& value, int significant = 12);
+
+// "text" when exact, "~text" when rounded: the form used in human-readable output.
+std::string to_display(const Rational& value, int significant = 12);
+
+// A double within one ulp (GMP truncates), for floating-point search only: never for a decision.
+double to_double(const Rational& value);
+
+}  // namespace plumb::numeric

@@ -1,0 +1,45 @@
+// Limits on a solve: wall time, memory and interrupts, polled by every long loop.
+#pragma once
+
+#include <atomic>
+#include <chrono>
+#include <cstddef>
+#include <optional>
+#include <string>
+
+namespace plumb::run {
+
+// Why work stopped before it finished.
+enum class StopReason { none, time_limit, memory_limit, interrupted };
+std::string describe(StopReason reason);
+
+// Set from a signal handler (SIGINT, SIGTERM); every Budget sees it.
+std::atomic<bool>& interrupt_flag();
+
+class Budget {
+ public:
+  Budget() = default;
+  Budget(std::optional<double> time_limit_seconds, std::optional<std::size_t> memory_limit_mib);
+
+  // Cheap enough to call every iteration: reads the clock, memory is sampled every 64th call.
+  bool exhausted();
+  StopReason reason() const { return reason_; }
+  double elapsed_seconds() const;
+
+ private:
+  std::chrono::steady_clock::time_point start_ = std::chrono::steady_clock::now();
+  std::optional<double> time_limit_seconds_;
+  std::optional<std::size_t> memory_limit_mib_;
+  unsigned calls_ = 0;
+  StopReason reason_ = StopReason::none;
+};
+
+// Resident memory of this process in MiB (from /proc/self/statm), 0 when unknown.
+std::size_t resident_mib();
+
+// Thrown by deep code to unwind to the command when the budget is exhausted.
+struct Stopped {
+  StopReason reason;
+};
+
+}  // namespace plumb::run

@@ -1,0 +1,42 @@
+// Internal to the driver: how each subcommand plugs into main, and the options they share.
+#pragma once
+
+#include "plumb/model/model.hpp"
+#include "plumb/model/read.hpp"
+
+#include <CLI/CLI.hpp>
+
+#include <functional>
+#include <string>
+
+namespace plumb::cli {
+
+// Exit statuses, documented in the README.
+enum Exit : int {
+  exit_ok = 0,
+  exit_bad_input = 1,
+  exit_stopped = 3,  // a time, memory or interrupt limit was reached; nothing certified
+  exit_certificate_invalid = 4,
+  exit_infeasible = 10,
+  exit_unbounded = 11,
+};
+
+// A subcommand's parsed options become one action returning the exit status.
+using Action = std::function<int()>;
+
+// The options every command that reads a model shares.
+struct ModelOptions {
+  std::string path;
+  std::string labels;
+  bool ignore_objective_rhs = false;
+};
+void add_model_options(CLI::App& command, ModelOptions& options);
+model::Model load_model(const ModelOptions& options);
+
+// One function per subcommand; each adds itself to app and sets `action` when chosen.
+void add_inspect(CLI::App& app, Action& action);
+void add_convert(CLI::App& app, Action& action);
+void add_solve(CLI::App& app, Action& action);
+void add_check(CLI::App& app, Action& action);
+
+}  // namespace plumb::cli

@@ -1,0 +1,56 @@
+// plumb: the command-line driver.  Parses options and calls one library function per command.
+#include "command.hpp"
+
+#include <iostream>
+#include <new>
+
+namespace plumb::cli {
+
+void add_model_options(CLI::App& command, ModelOptions& options) {
+  command.add_option("model", options.path, "Model file: MPS (fixed or free, .gz allowed) or .plumb")->required();
+  command.add_option("--labels", options.labels, "Labels sidecar CSV (default: MODEL.labels.csv if present)");
+  command.add_flag("--ignore-objective-rhs", options.ignore_objective_rhs,
+                   "Leave out an MPS RHS entry on the objective row instead of taking its negative "
+                   "as the objective constant");
+}
+
+model::Model load_model(const ModelOptions& options) {
+  model::ReadOptions read;
+  read.labels_path = options.labels;
+  if (options.ignore_objective_rhs) read.constant_rule = model::ObjectiveConstantRule::ignored;
+  model::Model m = model::read_model(options.path, read);
+  for (const auto& warning : m.warnings) std::cerr << model::format_warning(warning) << "\n";
+  return m;
+}
+
+}  // namespace plumb::cli
+
+int main(int argc, char** argv) {
+  using namespace plumb::cli;
+  CLI::App app{"plumb: audits linear programs in exact arithmetic, with certificates anyone can check"};
+  app.set_version_flag("--version", std::string("plumb ") + PLUMB_VERSION);
+  app.require_subcommand(1);
+  Action action;
+  add_inspect(app, action);
+  add_convert(app, action);
+  add_solve(app, action);
+  add_check(app, action);
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    int status = app.exit(e);
+    return status == 0 ? exit_ok : exit_bad_input;
+  }
+  try {
+    return action ? action() : exit_bad_input;
+  } catch (const plumb::model::InputError& e) {
+    std::cerr << "plumb: " << e.what() << "\n";
+    return exit_bad_input;
+  } catch (const std::bad_alloc&) {
+    std::cerr << "plumb: ran out of memory; nothing was certified\n";
+    return exit_stopped;
+  } catch (const std::exception& e) {
+    std::cerr << "plumb: " << e.what() << "\n";
+    return exit_bad_input;
+  }
+}

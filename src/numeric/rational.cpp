@@ -1,0 +1,156 @@
+#include "plumb/numeric/rational.hpp"
+
+#include <cmath>
+#include <cstdlib>
+
+namespace plumb::numeric {
+namespace {
+
+bool is_digit(char c) { return c >= '0' && c <= '9'; }
+
+Integer power_of_ten(long exponent) {
+  Integer result;
+  mpz_ui_pow_ui(result.backend().data(), 10, static_cast<unsigned long>(exponent));
+  return result;
+}
+
+std::optional<Rational> fail(ParseFailure* why, std::string reason) {
+  if (why) why->reason = std::move(reason);
+  return std::nullopt;
+}
+
+}  // namespace
+
+std::optional<Rational> parse_decimal(std::string_view text, ParseFailure* why) {
+  std::size_t i = 0;
+  bool negative = false;
+  if (i < text.size() && (text[i] == '+' || text[i] == '-')) negative = text[i++] == '-';
+  std::string digits;  // integer and fraction digits run together
+  long fraction_digits = 0;
+  bool any_digit = false;
+  while (i < text.size() && is_digit(text[i])) digits += text[i++], any_digit = true;
+  if (i < text.size() && text[i] == '.') {
+    ++i;
+    while (i < text.size() && is_digit(text[i])) digits += text[i++], ++fraction_digits, any_digit = true;
+  }
+  if (!any_digit) return fail(why, "a number");
+  long exponent = 0;
+  if (i < text.size() && (text[i] == 'e' || text[i] == 'E')) {
+    ++i;
+    bool exponent_negative = false;
+    if (i < text.size() && (text[i] == '+' || text[i] == '-')) exponent_negative = text[i++] == '-';
+    if (i >= text.size() || !is_digit(text[i])) return fail(why, "digits after the exponent mark");
+    while (i < text.size() && is_digit(text[i])) {
+      exponent = exponent * 10 + (text[i++] - '0');
+      if (exponent > max_decimal_exponent)
+        return fail(why, "an exponent of at most " + std::to_string(max_decimal_exponent));
+    }
+    if (exponent_negative) exponent = -exponent;
+  }
+  if (i != text.size()) return fail(why, "a number");
+  std::size_t first = digits.find_first_not_of('0');
+  if (first == std::string::npos) return Rational(0);
+  Integer mantissa(digits.substr(first));
+  if (negative) mantissa = -mantissa;
+  long scale = exponent - fraction_digits;
+  if (scale >= 0) return Rational(mantissa * power_of_ten(scale));
+  return Rational(mantissa, power_of_ten(-scale));
+}
+
+std::optional<Rational> parse_number(std::string_view text, ParseFailure* why) {
+  std::size_t slash = text.find('/');
+  if (slash == std::string_view::npos) return parse_decimal(text, why);
+  auto numerator = parse_decimal(text.substr(0, slash), why);
+  if (!numerator) return std::nullopt;
+  auto denominator = parse_decimal(text.substr(slash + 1), why);
+  if (!denominator) return std::nullopt;
+  if (*denominator == 0) return fail(why, "a non-zero denominator");
+  return Rational(*numerator / *denominator);
+}
+
+std::string to_fraction(const Rational& value) {
+  return value.str();  // GMP keeps mpq canonical: "p" or "p/q", q > 0, lowest terms
+}
+
+std::optional<Rational> parse_canonical_fraction(std::string_view text, std::size_t max_digits,
+                                                 ParseFailure* why) {
+  std::size_t i = 0;
+  if (i < text.size() && text[i] == '-') ++i;
+  std::size_t numerator_start = i;
+  while (i < text.size() && is_digit(text[i])) ++i;
+  std::size_t numerator_digits = i - numerator_start;
+  if (numerator_digits == 0) return fail(why, "a rational \"p\" or \"p/q\" of decimal digits");
+  std::size_t denominator_digits = 0;
+  if (i < text.size() && text[i] == '/') {
+    std::size_t start = ++i;
+    while (i < text.size() && is_digit(text[i])) ++i;
+    denominator_digits = i - start;
+    if (denominator_digits == 0) return fail(why, "digits after '/'");
+  }
+  if (i != text.size()) return fail(why, "a rational \"p\" or \"p/q\" of decimal digits");
+  if (numerator_digits + denominator_digits > max_digits)
+    return fail(why, "at most " + std::to_string(max_digits) + " digits");
+  Rational value;
+  std::string copy(text);
+  if (mpq_set_str(value.backend().data(), copy.c_str(), 10) != 0)
+    return fail(why, "a rational \"p\" or \"p/q\" of decimal digits");
+  if (denominator_digits > 0 && mpz_sgn(mpq_denref(value.backend().data())) == 0)
+    return fail(why, "a non-zero denominator");
+  // Canonical means GMP would print exactly this text back: lowest terms, no "-0", no leading zeros.
+  mpq_canonicalize(value.backend().data());
+  if (to_fraction(value) != text) return fail(why, "the canonical form \"" + to_fraction(value) + "\"");
+  return value;
+}
+
+Decimal to_decimal(const Rational& value, int significant) {
+  if (significant < 1) significant = 1;
+  if (value == 0) return {"0", false};
+  Integer numerator = abs(boost::multiprecision::numerator(value));
+  Integer denominator = boost::multiprecision::denominator(value);
+  // Find the decimal exponent e with 10^e <= |value| < 10^(e+1).
+  long exponent = static_cast<long>(numerator.str().size()) - static_cast<long>(denominator.str().size());
+  auto scaled_compare = [&](long e) {  // |value| >= 10^e ?
+    return e >= 0 ? numerator >= denominator * power_of_ten(e) : numerator * power_of_ten(-e) >= denominator;
+  };
+  while (!scaled_compare(exponent)) --exponent;
+  while (scaled_compare(exponent + 1)) ++exponent;
+  // digits = round(|value| * 10^(significant-1-exponent)), half away from zero.
+  long shift = significant - 1 - exponent;
+  Integer top = shift >= 0 ? numerator * power_of_ten(shift) : numerator;
+  Integer bottom = shift >= 0 ? denominator : denominator * power_of_ten(-shift);
+  Integer quotient = top / bottom;
+  Integer remainder = top - quotient * bottom;
+  bool rounded = remainder != 0;
+  if (2 * remainder >= bottom) ++quotient;
+  std::string digits = quotient.str();
+  if (static_cast<int>(digits.size()) > significant) {  // rounding carried into a new digit
+    digits.pop_back();
+    ++exponent;
+  }
+  while (digits.size() > 1 && digits.back() == '0') digits.pop_back();
+  std::string text = value < 0 ? "-" : "";
+  long point = exponent + 1;  // digits before the decimal point
+  if (exponent >= -5 && exponent < significant + 3) {
+    if (point <= 0) {
+      text += "0." + std::string(static_cast<std::size_t>(-point), '0') + digits;
+    } else if (point >= static_cast<long>(digits.size())) {
+      text += digits + std::string(static_cast<std::size_t>(point) - digits.size(), '0');
+    } else {
+      text += digits.substr(0, static_cast<std::size_t>(point)) + "." + digits.substr(static_cast<std::size_t>(point));
+    }
+  } else {
+    text += digits.substr(0, 1);
+    if (digits.size() > 1) text += "." + digits.substr(1);
+    text += (exponent < 0 ? "e-" : "e+") + std::to_string(std::labs(exponent));
+  }
+  return {text, rounded};
+}
+
+std::string to_display(const Rational& value, int significant) {
+  Decimal decimal = to_decimal(value, significant);
+  return decimal.rounded ? "~" + decimal.text : decimal.text;
+}
+
+double to_double(const Rational& value) { return mpq_get_d(value.backend().data()); }
+
+}  // namespace plumb::numeric

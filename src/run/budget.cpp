@@ -1,0 +1,49 @@
+#include "plumb/run/budget.hpp"
+
+#include <cstdio>
+#include <unistd.h>
+
+namespace plumb::run {
+
+std::string describe(StopReason reason) {
+  switch (reason) {
+    case StopReason::none: return "not stopped";
+    case StopReason::time_limit: return "time limit reached";
+    case StopReason::memory_limit: return "memory limit reached";
+    case StopReason::interrupted: return "interrupted";
+  }
+  return "stopped";
+}
+
+std::atomic<bool>& interrupt_flag() {
+  static std::atomic<bool> flag{false};
+  return flag;
+}
+
+Budget::Budget(std::optional<double> time_limit_seconds, std::optional<std::size_t> memory_limit_mib)
+    : time_limit_seconds_(time_limit_seconds), memory_limit_mib_(memory_limit_mib) {}
+
+double Budget::elapsed_seconds() const {
+  return std::chrono::duration<double>(std::chrono::steady_clock::now() - start_).count();
+}
+
+bool Budget::exhausted() {
+  if (reason_ != StopReason::none) return true;
+  if (interrupt_flag().load(std::memory_order_relaxed)) reason_ = StopReason::interrupted;
+  else if (time_limit_seconds_ && elapsed_seconds() > *time_limit_seconds_) reason_ = StopReason::time_limit;
+  else if (memory_limit_mib_ && (calls_++ % 64) == 0 && resident_mib() > *memory_limit_mib_)
+    reason_ = StopReason::memory_limit;
+  return reason_ != StopReason::none;
+}
+
+std::size_t resident_mib() {
+  std::FILE* statm = std::fopen("/proc/self/statm", "r");
+  if (!statm) return 0;
+  unsigned long pages_total = 0, pages_resident = 0;
+  int read = std::fscanf(statm, "%lu %lu", &pages_total, &pages_resident);
+  std::fclose(statm);
+  if (read != 2) return 0;
+  return pages_resident * static_cast<std::size_t>(sysconf(_SC_PAGESIZE)) >> 20;
+}
+
+}  // namespace plumb::run

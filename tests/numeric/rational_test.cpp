@@ -1,0 +1,61 @@
+#include "plumb/numeric/rational.hpp"
+
+#include <gtest/gtest.h>
+
+using plumb::numeric::Rational;
+using plumb::numeric::parse_decimal;
+using plumb::numeric::parse_number;
+
+// Decimal semantics: common practice (the value a decimal literal denotes, exactly).
+TEST(ParseDecimal, ExactValues) {
+  EXPECT_EQ(*parse_decimal("1.1"), Rational(11, 10));
+  EXPECT_EQ(*parse_decimal("2.5E-3"), Rational(1, 400));
+  EXPECT_EQ(*parse_decimal("-0"), Rational(0));
+  EXPECT_EQ(*parse_decimal(".5"), Rational(1, 2));
+  EXPECT_EQ(*parse_decimal("1."), Rational(1));
+  EXPECT_EQ(*parse_decimal("1e+05"), Rational(100000));
+  EXPECT_EQ(*parse_decimal("+7"), Rational(7));
+  EXPECT_EQ(*parse_decimal("1234567890123456789012345678901234567890"),
+            Rational(plumb::numeric::Integer("1234567890123456789012345678901234567890")));
+  EXPECT_EQ(*parse_decimal("0.1234567890123456789012345678901234567891"),
+            Rational(plumb::numeric::Integer("1234567890123456789012345678901234567891"),
+                     plumb::numeric::Integer("10000000000000000000000000000000000000000")));
+}
+
+TEST(ParseDecimal, RefusesWhatIsNotANumber) {
+  for (const char* bad : {"", "-", ".", "e5", "1e", "1e+", "1.2.3", "0x10", "1,5", " 1", "1 ", "inf", "nan", "1e100001"})
+    EXPECT_FALSE(parse_decimal(bad)) << bad;
+}
+
+TEST(ParseNumber, Fractions) {
+  EXPECT_EQ(*parse_number("3/8"), Rational(3, 8));
+  EXPECT_EQ(*parse_number("-6/4"), Rational(-3, 2));
+  EXPECT_EQ(*parse_number("1.5/3"), Rational(1, 2));
+  EXPECT_FALSE(parse_number("1/0"));
+  EXPECT_FALSE(parse_number("1/"));
+}
+
+TEST(Printing, FractionAndDecimal) {
+  EXPECT_EQ(plumb::numeric::to_fraction(Rational(-6, 4)), "-3/2");
+  EXPECT_EQ(plumb::numeric::to_fraction(Rational(5)), "5");
+  auto third = plumb::numeric::to_decimal(Rational(1, 3), 6);
+  EXPECT_EQ(third.text, "0.333333");
+  EXPECT_TRUE(third.rounded);
+  auto exact = plumb::numeric::to_decimal(Rational(-464753142857, 1000000000), 12);
+  EXPECT_EQ(exact.text, "-464.753142857");
+  EXPECT_FALSE(exact.rounded);
+  EXPECT_EQ(plumb::numeric::to_decimal(Rational(2, 3), 3).text, "0.667");
+  EXPECT_EQ(plumb::numeric::to_decimal(Rational(999999, 1000000), 3).text, "1");
+  EXPECT_EQ(plumb::numeric::to_decimal(*parse_decimal("1e30"), 12).text, "1e+30");
+  EXPECT_EQ(plumb::numeric::to_decimal(*parse_decimal("-2.5e-9"), 12).text, "-2.5e-9");
+  EXPECT_EQ(plumb::numeric::to_display(Rational(1, 3), 4), "~0.3333");
+}
+
+TEST(CanonicalFraction, StrictForm) {
+  using plumb::numeric::parse_canonical_fraction;
+  EXPECT_EQ(*parse_canonical_fraction("-3/2", 100), Rational(-3, 2));
+  EXPECT_EQ(*parse_canonical_fraction("0", 100), Rational(0));
+  for (const char* bad : {"6/4", "-0", "01", "3/-2", "3/0", "+3", "1.5", "3/1", "", "1/2/3"})
+    EXPECT_FALSE(parse_canonical_fraction(bad, 100)) << bad;
+  EXPECT_FALSE(parse_canonical_fraction("123456", 5));
+}
