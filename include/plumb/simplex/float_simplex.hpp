@@ -1,0 +1,39 @@
+// Floating-point bounded simplex: finds a (nearly) optimal basis fast; never decides an answer.
+#pragma once
+
+#include "plumb/model/model.hpp"
+#include "plumb/run/budget.hpp"
+#include "plumb/simplex/basis.hpp"
+
+#include <functional>
+#include <string>
+
+namespace plumb::simplex {
+
+enum class FloatStatus { optimal, infeasible, unbounded, stopped, failed };
+
+struct FloatProgress {
+  std::string phase;  // e.g. "dual phase 1", "dual", "primal clean-up"
+  long iterations = 0;
+  double objective = 0;
+  double infeasibility = 0;
+};
+
+struct FloatOptions {
+  run::Budget* budget = nullptr;              // polled every iteration when set
+  const Basis* warm_start = nullptr;          // start from this basis when given
+  std::function<void(const FloatProgress&)> progress;
+};
+
+struct FloatResult {
+  FloatStatus status = FloatStatus::failed;
+  Basis basis;        // the final basis (a claim to be certified exactly, never trusted)
+  long iterations = 0;
+  double objective = 0;  // in the model's own sense, constant included
+  std::string note;      // why it failed or stopped, for diagnostics
+};
+
+// Works on the model's own form: columns with bounds, one logical per row bounded by its sides.
+FloatResult solve_float(const model::Model& model, const FloatOptions& options = {});
+
+}  // namespace plumb::simplex
