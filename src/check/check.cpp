@@ -1,6 +1,229 @@
-// The checker: to be written (see docs/certificates.md).
+// The checker: each status's conditions, in the order docs/certificates.md gives them, in exact
+// arithmetic.  Depends only on the model, the rational type and the certificate types.
 #include "plumb/check/check.hpp"
 
+#include "wording.hpp"
+
 namespace plumb::check {
-Verdict verify(const model::Model&, const certificate::Certificate&) { return {false, "", "checker not yet written"}; }
+namespace {
+
+using certificate::Certificate;
+using certificate::NamedValues;
+using certificate::Status;
+using detail::amount;
+using detail::Failure;
+using model::Model;
+using model::Side;
+using numeric::Rational;
+
+enum class Kind { row, column };
+
+// Names resolved to a dense vector; an unknown or repeated name fails.
+std::vector<Rational> dense(const Model& m, const NamedValues& values, Kind kind, const char* part) {
+  const char* noun = kind == Kind::row ? "row" : "column";
+  std::vector<Rational> out(static_cast<std::size_t>(kind == Kind::row ? m.row_count() : m.column_count()));
+  std::vector<bool> seen(out.size(), false);
+  for (const auto& [name, value] : values) {
+    auto index = kind == Kind::row ? m.find_row(name) : m.find_column(name);
+    if (!index)
+      throw Failure{std::string(part) + " names " + noun + " " + detail::shown_name(name) +
+                    ", which the model does not have"};
+    if (seen[*index]) throw Failure{std::string(part) + " lists " + noun + " " + detail::shown_name(name) + " twice"};
+    seen[*index] = true;
+    out[*index] = value;
+  }
+  return out;
+}
+
+std::vector<Rational> times(const Model& m, const std::vector<Rational>& x) {  // A x
+  std::vector<Rational> out(static_cast<std::size_t>(m.row_count()));
+  for (int j = 0; j < m.column_count(); ++j) {
+    if (x[j] == 0) continue;
+    auto rows = m.matrix.column_rows(j);
+    auto values = m.matrix.column_values(j);
+    for (std::size_t k = 0; k < rows.size(); ++k) out[rows[k]] += values[k] * x[j];
+  }
+  return out;
+}
+
+std::vector<Rational> transpose_times(const Model& m, const std::vector<Rational>& y) {  // A^T y
+  std::vector<Rational> out(static_cast<std::size_t>(m.column_count()));
+  for (int j = 0; j < m.column_count(); ++j) {
+    auto rows = m.matrix.column_rows(j);
+    auto values = m.matrix.column_values(j);
+    for (std::size_t k = 0; k < rows.size(); ++k)
+      if (y[rows[k]] != 0) out[j] += values[k] * y[rows[k]];
+  }
+  return out;
+}
+
+// c' of the minimisation form: c when minimising, -c when maximising.
+Rational min_cost(const Model& m, int j) {
+  const Rational& c = m.objective.coefficients[j];
+  return m.objective.sense == model::Sense::maximise ? Rational(-c) : c;
+}
+
+Rational min_cost_dot(const Model& m, const std::vector<Rational>& v) {
+  Rational sum = 0;
+  for (int j = 0; j < m.column_count(); ++j)
+    if (v[j] != 0) sum += min_cost(m, j) * v[j];
+  return sum;
+}
+
+// v times the side its sign presses on; the sign rules have made sure that side is finite.
+Rational pressed(const Rational& v, const Side& when_positive, const Side& when_negative) {
+  if (v > 0) return v * *when_positive;
+  if (v < 0) return v * *when_negative;
+  return 0;
+}
+
+void require_within(const std::string& what, const char* quantity, const Rational& v, const Side& lower,
+                    const Side& upper, const char* noun) {
+  const std::string head = "x is not feasible: " + what + ": " + quantity + " = " + amount(v);
+  if (lower && v < *lower)
+    throw Failure{head + " is below its lower " + noun + " " + amount(*lower) + " by " + amount(*lower - v)};
+  if (upper && v > *upper)
+    throw Failure{head + " is above its upper " + noun + " " + amount(*upper) + " by " + amount(v - *upper)};
+}
+
+void require_feasible(const Model& m, const std::vector<Rational>& x) {
+  for (int j = 0; j < m.column_count(); ++j)
+    require_within(detail::column_text(m, j), "x", x[j], m.columns[j].lower, m.columns[j].upper, "bound");
+  std::vector<Rational> ax = times(m, x);
+  for (int i = 0; i < m.row_count(); ++i)
+    require_within(detail::row_text(m, i), "a.x", ax[i], m.rows[i].lower, m.rows[i].upper, "side");
+}
+
+// A multiplier may be positive only against a finite limit it presses on, negative likewise.
+void require_sign(const std::string& what, const char* quantity, const Rational& v, const Side& when_positive,
+                  const char* positive_limit, const Side& when_negative, const char* negative_limit) {
+  if (v > 0 && !when_positive)
+    throw Failure{what + ": " + quantity + " = " + amount(v) + " is positive, which needs a finite " + positive_limit +
+                  ", and there is none"};
+  if (v < 0 && !when_negative)
+    throw Failure{what + ": " + quantity + " = " + amount(v) + " is negative, which needs a finite " + negative_limit +
+                  ", and there is none"};
+}
+
+// Along a ray a quantity may fall only where nothing is below it, and rise only where nothing is above.
+void require_unlimited(const std::string& what, const char* quantity, const Rational& v, const Side& lower,
+                       const Side& upper, const char* noun) {
+  const std::string head = "ray: " + what + ": " + quantity + " = " + amount(v);
+  if (v < 0 && lower)
+    throw Failure{head + " is negative, but the lower " + noun + " " + amount(*lower) +
+                  " is finite, so the ray leaves the model"};
+  if (v > 0 && upper)
+    throw Failure{head + " is positive, but the upper " + noun + " " + amount(*upper) +
+                  " is finite, so the ray leaves the model"};
+}
+
+void require_identity(const Model& m, const Certificate& c) {
+  if (!m.source.sha256.empty() && c.model.sha256 != m.source.sha256)
+    throw Failure{"model: the certificate is for another model: it names sha256 " +
+                  (c.model.sha256.empty() ? std::string("(none)") : c.model.sha256) + ", while " +
+                  detail::shown_name(m.source.path) + " has sha256 " + m.source.sha256};
+  if (c.model.rows != m.row_count() || c.model.columns != m.column_count())
+    throw Failure{"model: the certificate describes " + std::to_string(c.model.rows) + " rows and " +
+                  std::to_string(c.model.columns) + " columns, the model has " + std::to_string(m.row_count()) +
+                  " rows and " + std::to_string(m.column_count()) + " columns"};
+}
+
+Verdict verify_optimal(const Model& m, const Certificate& c, const detail::Objective& objective) {
+  std::vector<Rational> x = dense(m, c.x, Kind::column, "x");
+  std::vector<Rational> y = dense(m, c.y, Kind::row, "y");
+  require_feasible(m, x);
+  Rational bound = 0;  // weak duality: c'.x >= bound for every feasible x
+  for (int i = 0; i < m.row_count(); ++i) {
+    const model::Row& row = m.rows[i];
+    require_sign(detail::row_text(m, i), "multiplier y", y[i], row.lower, "lower side", row.upper, "upper side");
+    bound += pressed(y[i], row.lower, row.upper);
+  }
+  std::vector<Rational> aty = transpose_times(m, y);
+  for (int j = 0; j < m.column_count(); ++j) {
+    const model::Column& column = m.columns[j];
+    Rational d = min_cost(m, j) - aty[j];
+    require_sign(detail::column_text(m, j), "reduced cost d = c' - A^T y", d, column.lower, "lower bound",
+                 column.upper, "upper bound");
+    bound += pressed(d, column.lower, column.upper);
+  }
+  Rational cost = min_cost_dot(m, x);
+  if (bound != cost)
+    throw Failure{"x is not proven optimal: the dual bound " + amount(objective.from_min_form(bound)) +
+                  " differs from the objective at x, " + amount(objective.from_min_form(cost)) + ", by " +
+                  amount(cost - bound)};
+  Rational value = objective.at(x);
+  if (!c.objective) throw Failure{"objective: an optimal certificate must state it"};
+  if (*c.objective != value)
+    throw Failure{"objective: the certificate states " + amount(*c.objective) + ", but the objective at x is " +
+                  amount(value) + objective.constant_note()};
+  return {true, "optimal: objective " + amount(value) + " is attained by x and no feasible point is better " +
+                    "(the dual bound equals it)" + objective.constant_note(), ""};
+}
+
+Verdict verify_infeasible(const Model& m, const Certificate& c) {
+  std::vector<Rational> y = dense(m, c.y, Kind::row, "y");
+  Rational rows_force = 0;  // every x meeting the rows has y.Ax >= rows_force
+  for (int i = 0; i < m.row_count(); ++i) {
+    const model::Row& row = m.rows[i];
+    require_sign(detail::row_text(m, i), "Farkas multiplier y", y[i], row.lower, "lower side", row.upper, "upper side");
+    rows_force += pressed(y[i], row.lower, row.upper);
+  }
+  std::vector<Rational> a = transpose_times(m, y);
+  Rational bounds_allow = 0;  // every x within its bounds has y.Ax = a.x <= bounds_allow
+  for (int j = 0; j < m.column_count(); ++j) {
+    const model::Column& column = m.columns[j];
+    require_sign(detail::column_text(m, j), "(A^T y)", a[j], column.upper, "upper bound", column.lower, "lower bound");
+    bounds_allow += pressed(a[j], column.upper, column.lower);
+  }
+  if (rows_force <= bounds_allow)
+    throw Failure{"no contradiction: the rows weighted by y force y.Ax >= " + amount(rows_force) +
+                  ", but the bounds let y.Ax reach " + amount(bounds_allow) +
+                  "; infeasibility needs the first to exceed the second"};
+  return {true, "infeasible: no x meets every row and bound (Farkas: the rows weighted by y force y.Ax >= " +
+                    amount(rows_force) + ", while the bounds keep y.Ax <= " + amount(bounds_allow) + ")", ""};
+}
+
+Verdict verify_unbounded(const Model& m, const Certificate& c, const detail::Objective& objective) {
+  std::vector<Rational> x = dense(m, c.x, Kind::column, "x");
+  std::vector<Rational> r = dense(m, c.ray, Kind::column, "ray");
+  require_feasible(m, x);
+  for (int j = 0; j < m.column_count(); ++j)
+    require_unlimited(detail::column_text(m, j), "r", r[j], m.columns[j].lower, m.columns[j].upper, "bound");
+  std::vector<Rational> ar = times(m, r);
+  for (int i = 0; i < m.row_count(); ++i)
+    require_unlimited(detail::row_text(m, i), "(A r)", ar[i], m.rows[i].lower, m.rows[i].upper, "side");
+  Rational slope = min_cost_dot(m, r);
+  if (slope >= 0)
+    throw Failure{"ray: the objective does not improve along the ray: c.r = " + amount(objective.direction(slope)) +
+                  (m.objective.sense == model::Sense::maximise ? ", and maximising needs it positive"
+                                                               : ", and minimising needs it negative")};
+  return {true, "unbounded: x is feasible, so is x + t r for every t >= 0, and the objective improves by " +
+                    amount(-slope) + " per unit of t, so no optimum exists", ""};
+}
+
+Verdict verify_feasible(const Model& m, const Certificate& c, const detail::Objective& objective) {
+  std::vector<Rational> x = dense(m, c.x, Kind::column, "x");
+  require_feasible(m, x);
+  return {true, "feasible: x meets every row and bound, with objective " + amount(objective.at(x)) +
+                    objective.constant_note(), ""};
+}
+
+}  // namespace
+
+Verdict verify(const model::Model& m, const certificate::Certificate& c) {
+  try {
+    require_identity(m, c);
+    detail::Objective objective(m, c.model.objective_constant);
+    switch (c.status) {
+      case Status::optimal: return verify_optimal(m, c, objective);
+      case Status::infeasible: return verify_infeasible(m, c);
+      case Status::unbounded: return verify_unbounded(m, c, objective);
+      case Status::feasible: return verify_feasible(m, c, objective);
+    }
+    return {false, "", "status: not one the checker knows"};
+  } catch (const Failure& failure) {
+    return {false, "", failure.text};
+  }
+}
+
 }  // namespace plumb::check

@@ -1,9 +1,57 @@
-// plumb check: not yet written.
+// plumb check MODEL CERTIFICATE: verifies a certificate against a model with the independent checker.
 #include "command.hpp"
 
+#include "plumb/certificate/certificate.hpp"
+#include "plumb/check/check.hpp"
+
+#include <nlohmann/json.hpp>
+
+#include <iostream>
+#include <memory>
+
 namespace plumb::cli {
-void add_check(CLI::App& app, Action& action) {
-  auto* command = app.add_subcommand("check", "(not yet available)");
-  command->callback([&action] { action = [] { return exit_bad_input; }; });
+namespace {
+
+constexpr const char* caution =
+    "plumb verifies the mathematics of the model as written; whether the model captures the law or the "
+    "specification is for qualified people under local codes.";
+
+struct CheckOptions {
+  ModelOptions model;
+  std::string certificate;
+  bool json = false;
+};
+
+int run_check(const CheckOptions& options) {
+  model::Model m = load_model(options.model);
+  certificate::Certificate c = certificate::read_certificate(options.certificate);
+  check::Verdict verdict = check::verify(m, c);
+  if (options.json) {
+    nlohmann::ordered_json out;
+    out["model"] = options.model.path;
+    out["certificate"] = options.certificate;
+    out["valid"] = verdict.valid;
+    out["status"] = certificate::to_string(c.status);
+    if (verdict.valid) out["proven"] = verdict.proven, out["caution"] = caution;
+    else out["failure"] = verdict.failure;
+    std::cout << out.dump(2) << "\n";
+  } else if (verdict.valid) {
+    std::cout << "valid: " << verdict.proven << "\n" << caution << "\n";
+  } else {
+    std::cout << "invalid " << certificate::to_string(c.status) << " certificate: " << verdict.failure << "\n";
+  }
+  return verdict.valid ? exit_ok : exit_certificate_invalid;
 }
+
+}  // namespace
+
+void add_check(CLI::App& app, Action& action) {
+  auto options = std::make_shared<CheckOptions>();
+  auto* command = app.add_subcommand("check", "Verify a certificate against a model, in exact arithmetic");
+  add_model_options(*command, options->model);
+  command->add_option("certificate", options->certificate, "Certificate JSON file (docs/certificates.md)")->required();
+  command->add_flag("--json", options->json, "Print the verdict as JSON");
+  command->callback([&action, options] { action = [options] { return run_check(*options); }; });
+}
+
 }  // namespace plumb::cli

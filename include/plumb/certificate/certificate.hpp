@@ -1,10 +1,12 @@
 // Certificates: the proof of a result (optimal, infeasible, unbounded, feasible) and its JSON form.
 #pragma once
 
+#include "plumb/model/model.hpp"
 #include "plumb/numeric/rational.hpp"
 
 #include <nlohmann/json.hpp>
 
+#include <cstddef>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -17,16 +19,22 @@ using numeric::Rational;
 
 enum class Status { optimal, infeasible, unbounded, feasible };
 std::string to_string(Status status);
+std::optional<Status> status_from_string(std::string_view text);
 
 struct ModelIdentity {
   std::string file;    // as given
-  std::string sha256;  // hex of the file's bytes as stored
+  std::string sha256;  // hex of the file's bytes as stored; empty for a model built in code
   long rows = 0;
   long columns = 0;
-  Rational objective_constant = 0;  // the constant that "objective" includes
+  // The constant that "objective" includes; when empty a checker uses the model's own.
+  std::optional<Rational> objective_constant = Rational(0);
 };
 
-// Named values, in the model's order; only non-zero entries are kept.
+// The identity a certificate for this model carries: its file, hash, size and objective constant.
+ModelIdentity identify(const model::Model& m);
+
+// Named values, in the model's order.  The writer leaves out zero entries; the reader keeps
+// whatever the file lists (a zero entry still has to name something in the model).
 using NamedValues = std::vector<std::pair<std::string, Rational>>;
 
 struct Certificate {
@@ -39,7 +47,26 @@ struct Certificate {
   nlohmann::json extra = nlohmann::json::object();  // further keys (e.g. "basis"); checkers ignore them
 };
 
+// Which of "objective", "x", "y", "ray" a certificate of this status carries.
+struct Parts {
+  bool objective = false, x = false, y = false, ray = false;
+};
+Parts parts_of(Status status);
+
 // Deterministic JSON text (schema in docs/certificates.md): same certificate, same bytes.
+// Keys in a fixed order, entries in the order held, one entry per line.
 std::string to_json_text(const Certificate& certificate);
+
+// What the strict reader accepts at most; every limit keeps time and memory bounded.
+struct ReadLimits {
+  std::size_t max_bytes = std::size_t(1) << 30;  // whole certificate text
+  int max_depth = 16;                            // nesting of objects and arrays
+  std::size_t max_digits = 100000;               // digits in one rational, numerator and denominator
+};
+
+// Strict reader: the schema exactly, canonical rationals only, no duplicate keys.
+// Throws model::InputError (file:line:col, found, expected) for anything else.
+Certificate parse_certificate(std::string_view text, const std::string& file, const ReadLimits& limits = {});
+Certificate read_certificate(const std::string& path, const ReadLimits& limits = {});
 
 }  // namespace plumb::certificate

@@ -1,0 +1,186 @@
+// Strict JSON: nlohmann's parser driven through a SAX handler that counts bytes, so every refusal
+// can say where it happened; the document is built by nlohmann's own DOM builder.
+#include "strict_json.hpp"
+
+#include <algorithm>
+#include <cstddef>
+#include <iterator>
+#include <limits>
+#include <optional>
+#include <unordered_set>
+#include <vector>
+
+namespace plumb::certificate::detail {
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+// A char iterator that reports how many bytes the parser has taken so far.
+struct CountingIterator {
+  using iterator_category = std::input_iterator_tag;
+  using value_type = char;
+  using difference_type = std::ptrdiff_t;
+  using pointer = const char*;
+  using reference = const char&;
+  const char* at;
+  std::size_t* consumed;
+  char operator*() const { return *at; }
+  CountingIterator& operator++() {
+    ++at;
+    ++*consumed;
+    return *this;
+  }
+  bool operator==(const CountingIterator& other) const { return at == other.at; }
+};
+
+model::Location location_of(std::string_view text, const std::string& file, std::size_t index) {
+  index = std::min(index, text.size());
+  std::string_view before = text.substr(0, index);
+  std::size_t last_newline = before.rfind('\n');
+  long line = 1 + static_cast<long>(std::count(before.begin(), before.end(), '\n'));
+  long column = static_cast<long>(last_newline == std::string_view::npos ? index : index - last_newline - 1) + 1;
+  return {file, line, column};
+}
+
+struct Refusal {
+  std::size_t index;  // byte where the refused thing starts
+  std::string found;
+  std::string expected;
+};
+
+class StrictHandler {
+ public:
+  StrictHandler(Json& root, std::string_view text, const std::size_t& consumed, int max_depth,
+                const std::string* target)
+      : dom_(root, false), text_(text), consumed_(consumed), max_depth_(max_depth), target_(target) {}
+
+  bool null() { return begin_value() && finish(dom_.null()); }
+  bool boolean(bool value) { return begin_value() && finish(dom_.boolean(value)); }
+  bool number_integer(Json::number_integer_t value) { return begin_value() && finish(dom_.number_integer(value)); }
+  bool number_unsigned(Json::number_unsigned_t value) { return begin_value() && finish(dom_.number_unsigned(value)); }
+  bool number_float(Json::number_float_t value, const std::string& text) {
+    return begin_value() && finish(dom_.number_float(value, text));
+  }
+  bool string(std::string& value) { return begin_value() && finish(dom_.string(value)); }
+  bool binary(Json::binary_t& value) { return begin_value() && finish(dom_.binary(value)); }
+
+  bool start_object(std::size_t elements) { return begin_value() && open(true) && finish(dom_.start_object(elements)); }
+  bool start_array(std::size_t elements) { return begin_value() && open(false) && finish(dom_.start_array(elements)); }
+  bool end_object() { return close() && finish(dom_.end_object()); }
+  bool end_array() { return close() && finish(dom_.end_array()); }
+
+  bool key(std::string& name) {
+    Frame& frame = frames_.back();
+    if (!frame.keys.insert(name).second) {
+      std::string shown = Json(name).dump();
+      refusal_ = Refusal{value_start(), "the key " + shown + " a second time in one object",
+                         "each key at most once (a duplicate would silently replace the first)"};
+      return false;
+    }
+    frame.key = name;
+    return finish(dom_.key(name));
+  }
+
+  bool parse_error(std::size_t position, const std::string&, const nlohmann::detail::exception& error) {
+    // nlohmann's message reads "[json.exception...] parse error at line L, column C: reason".
+    std::string reason = error.what();
+    std::size_t colon = reason.find(": ", reason.find("column"));
+    if (colon != std::string::npos) reason = reason.substr(colon + 2);
+    refusal_ = Refusal{position > 0 ? position - 1 : 0, "invalid JSON (" + reason + ")", "a JSON document"};
+    return false;
+  }
+
+  const std::optional<Refusal>& refusal() const { return refusal_; }
+  std::optional<std::size_t> target_index() const { return target_index_; }
+
+ private:
+  struct Frame {
+    bool is_object;
+    std::string key;       // object: the key whose value comes next
+    long index = -1;       // array: the index of the current element
+    std::unordered_set<std::string> keys;
+  };
+
+  // First byte of the value now starting: past the separators that follow the previous token.
+  std::size_t value_start() const {
+    std::size_t i = previous_end_;
+    while (i < text_.size() && (text_[i] == ' ' || text_[i] == '\t' || text_[i] == '\r' || text_[i] == '\n' ||
+                                text_[i] == ':' || text_[i] == ','))
+      ++i;
+    return i;
+  }
+
+  std::string current_pointer() const {
+    std::string pointer;
+    for (const Frame& frame : frames_)
+      pointer += frame.is_object ? pointer_step(frame.key) : "/" + std::to_string(frame.index);
+    return pointer;
+  }
+
+  bool begin_value() {
+    if (!frames_.empty() && !frames_.back().is_object) ++frames_.back().index;
+    if (target_ && !target_index_ && current_pointer() == *target_) target_index_ = value_start();
+    return true;
+  }
+
+  bool open(bool is_object) {
+    if (static_cast<int>(frames_.size()) >= max_depth_) {
+      refusal_ = Refusal{value_start(), "objects and arrays nested deeper than " + std::to_string(max_depth_) + " levels",
+                         "at most " + std::to_string(max_depth_) + " levels of nesting"};
+      return false;
+    }
+    frames_.push_back(Frame{is_object, {}, -1, {}});
+    return true;
+  }
+
+  bool close() {
+    frames_.pop_back();
+    return true;
+  }
+
+  bool finish(bool accepted) {
+    previous_end_ = consumed_;
+    return accepted;
+  }
+
+  nlohmann::detail::json_sax_dom_parser<Json> dom_;
+  std::string_view text_;
+  const std::size_t& consumed_;
+  int max_depth_;
+  const std::string* target_;
+  std::vector<Frame> frames_;
+  std::size_t previous_end_ = 0;
+  std::optional<Refusal> refusal_;
+  std::optional<std::size_t> target_index_;
+};
+
+}  // namespace
+
+std::string pointer_step(const std::string& key) {
+  std::string step = "/";
+  for (char c : key) step += c == '~' ? std::string("~0") : c == '/' ? std::string("~1") : std::string(1, c);
+  return step;
+}
+
+Json parse_strict_json(std::string_view text, const std::string& file, int max_depth) {
+  Json root;
+  std::size_t consumed = 0;
+  StrictHandler handler(root, text, consumed, max_depth, nullptr);
+  CountingIterator first{text.data(), &consumed}, last{text.data() + text.size(), &consumed};
+  if (!Json::sax_parse(first, last, &handler)) {
+    const Refusal refusal = handler.refusal().value_or(Refusal{consumed, "invalid JSON", "a JSON document"});
+    throw model::InputError(location_of(text, file, refusal.index), refusal.found, refusal.expected);
+  }
+  return root;
+}
+
+model::Location locate(std::string_view text, const std::string& file, const std::string& pointer) {
+  Json ignored;
+  std::size_t consumed = 0;
+  StrictHandler handler(ignored, text, consumed, std::numeric_limits<int>::max(), &pointer);
+  CountingIterator first{text.data(), &consumed}, last{text.data() + text.size(), &consumed};
+  Json::sax_parse(first, last, &handler);
+  return location_of(text, file, handler.target_index().value_or(0));
+}
+
+}  // namespace plumb::certificate::detail
