@@ -82,10 +82,13 @@ class StrictHandler {
   }
 
   bool parse_error(std::size_t position, const std::string&, const nlohmann::detail::exception& error) {
-    // nlohmann's message reads "[json.exception...] parse error at line L, column C: reason".
+    // nlohmann's message reads "[json.exception.KIND.ID] parse error at line L, column C: reason";
+    // we keep the reason and give the place ourselves.
     std::string reason = error.what();
-    std::size_t colon = reason.find(": ", reason.find("column"));
-    if (colon != std::string::npos) reason = reason.substr(colon + 2);
+    if (std::size_t tag = reason.find("] "); tag != std::string::npos) reason = reason.substr(tag + 2);
+    if (reason.starts_with("parse error")) {
+      if (std::size_t colon = reason.find(": "); colon != std::string::npos) reason = reason.substr(colon + 2);
+    }
     refusal_ = Refusal{position > 0 ? position - 1 : 0, "invalid JSON (" + reason + ")", "a JSON document"};
     return false;
   }
