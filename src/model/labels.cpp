@@ -1,8 +1,185 @@
-// Labels sidecar reader.  To be written: see docs/labels.md.
+// Labels sidecar reader (docs/labels.md): RFC 4180 CSV, one line per row, column or bound.
 #include "plumb/model/labels.hpp"
 
+#include "input_file.hpp"
+
+#include <array>
+#include <filesystem>
+#include <map>
+#include <ostream>
+
 namespace plumb::model {
-void apply_labels(Model&, const std::string&) {}
-void apply_labels_text(Model&, std::string_view, const std::string&) {}
-std::string labels_beside(const std::string&) { return {}; }
+namespace {
+
+constexpr std::array<std::string_view, 6> header = {"name", "kind", "statement", "unit", "group", "hard"};
+
+struct Field {
+  std::string text;
+  Location where;
+};
+
+struct Record {
+  std::vector<Field> fields;
+  Location where;  // where the record starts
+};
+
+// Reads RFC 4180 records: fields split by commas, quoted fields may hold commas, newlines and "".
+class CsvReader {
+ public:
+  CsvReader(std::string_view text, const std::string& file) : cursor_(text, file) {}
+
+  // False at the end of the text; blank lines are skipped.
+  bool next(Record& record) {
+    std::string_view line;
+    do {
+      if (!cursor_.next(line)) return false;
+    } while (line.empty());
+    record.fields.clear();
+    record.where = cursor_.here(1);
+    std::size_t i = 0;
+    while (true) {
+      Field field{"", cursor_.here(static_cast<long>(i) + 1)};
+      if (i < line.size() && line[i] == '"') {
+        ++i;
+        while (true) {
+          if (i >= line.size()) {  // a line break inside quotes belongs to the field
+            Location opened = field.where;
+            if (!cursor_.next(line))
+              throw InputError(opened, "a quoted field that is never closed", "a closing '\"'");
+            field.text += '\n';
+            i = 0;
+            continue;
+          }
+          if (line[i] == '"') {
+            if (i + 1 < line.size() && line[i + 1] == '"') {
+              field.text += '"';
+              i += 2;
+              continue;
+            }
+            ++i;
+            break;
+          }
+          field.text += line[i++];
+        }
+        if (i < line.size() && line[i] != ',')
+          throw InputError(cursor_.here(static_cast<long>(i) + 1), std::string("'") + line[i] + "' after a closing quote",
+                           "',' or the end of the line");
+      } else {
+        std::size_t end = line.find(',', i);
+        if (end == std::string_view::npos) end = line.size();
+        std::string_view text = line.substr(i, end - i);
+        if (std::size_t quote = text.find('"'); quote != std::string_view::npos)
+          throw InputError(cursor_.here(static_cast<long>(i + quote) + 1), "a '\"' inside an unquoted field",
+                           "the whole field in quotes, with '\"\"' for each quote inside");
+        field.text = text;
+        i = end;
+      }
+      record.fields.push_back(std::move(field));
+      if (i >= line.size()) return true;
+      ++i;  // the comma
+    }
+  }
+
+ private:
+  detail::LineCursor cursor_;
+};
+
+std::string quoted(const std::string& text) {
+  return "'" + (text.size() > 40 ? text.substr(0, 40) + "...'" : text + "'");
+}
+
+// The label a (name, kind) line addresses; kind "row" also reaches the objective, an MPS row too.
+Label& label_for(Model& model, const Field& name, const Field& kind) {
+  if (kind.text == "row") {
+    if (auto i = model.find_row(name.text)) return model.rows[static_cast<std::size_t>(*i)].label;
+    if (name.text == model.objective.name) return model.objective.label;
+    throw InputError(name.where, "the unknown row " + quoted(name.text), "the name of a row of the model");
+  }
+  if (kind.text != "column" && kind.text != "lower" && kind.text != "upper")
+    throw InputError(kind.where, "the kind " + quoted(kind.text), "row, column, lower or upper");
+  auto j = model.find_column(name.text);
+  if (!j) throw InputError(name.where, "the unknown column " + quoted(name.text), "the name of a column of the model");
+  Column& column = model.columns[static_cast<std::size_t>(*j)];
+  if (kind.text == "column") return column.label;
+  return kind.text == "lower" ? column.lower_label : column.upper_label;
+}
+
+}  // namespace
+
+void apply_labels_text(Model& model, std::string_view text, const std::string& file) {
+  if (text.starts_with("\xEF\xBB\xBF")) text.remove_prefix(3);  // a byte-order mark, as spreadsheets write
+  CsvReader reader(text, file);
+  Record record;
+  if (!reader.next(record)) throw InputError({file, 1, 0}, "an empty file", "the header line name,kind,statement,unit,group,hard");
+  bool header_ok = record.fields.size() == header.size();
+  for (std::size_t k = 0; header_ok && k < header.size(); ++k) header_ok = record.fields[k].text == header[k];
+  if (!header_ok) throw InputError(record.where, "a first line that is not the header", "name,kind,statement,unit,group,hard");
+  std::map<std::pair<std::string, std::string>, long> seen;  // (name, kind) -> line
+  while (reader.next(record)) {
+    if (record.fields.size() != header.size())
+      throw InputError(record.where, std::to_string(record.fields.size()) + " fields",
+                       "6 fields: name,kind,statement,unit,group,hard");
+    const auto& f = record.fields;
+    Label& label = label_for(model, f[0], f[1]);
+    auto [first, fresh] = seen.emplace(std::pair(f[0].text, f[1].text), record.where.line);
+    if (!fresh)
+      throw InputError(record.where, "a second line for " + f[1].text + " " + quoted(f[0].text),
+                       "one line per name and kind (the first is line " + std::to_string(first->second) + ")");
+    std::optional<bool> hard;
+    if (f[5].text == "yes") hard = true;
+    else if (f[5].text == "no") hard = false;
+    else if (!f[5].text.empty()) throw InputError(f[5].where, "hard = " + quoted(f[5].text), "yes, no or nothing");
+    // Empty fields leave what the model itself says.
+    if (!f[2].text.empty()) label.statement = f[2].text;
+    if (!f[3].text.empty()) label.unit = f[3].text;
+    if (!f[4].text.empty()) label.group = f[4].text;
+    if (hard) label.hard = hard;
+  }
+}
+
+void apply_labels(Model& model, const std::string& path) {
+  detail::LoadedFile file = detail::load_file(path);
+  apply_labels_text(model, file.text, path);
+}
+
+std::string labels_path_beside(const std::string& model_path) {
+  std::filesystem::path path(model_path);
+  if (path.extension() == ".gz") path.replace_extension();
+  return path.replace_extension(".labels.csv").string();
+}
+
+// Native models carry their labels inline, so only other models look for a sidecar of their own:
+// blend.plumb may sit beside blend.mps and blend.labels.csv, which are meant for the MPS names.
+std::string labels_beside(const std::string& model_path) {
+  std::filesystem::path path(model_path);
+  if (path.extension() == ".gz") path.replace_extension();
+  if (path.extension() == ".plumb") return {};
+  std::string beside = labels_path_beside(model_path);
+  std::error_code ignored;
+  if (beside == model_path || !std::filesystem::is_regular_file(beside, ignored)) return {};
+  return beside;
+}
+
+void write_labels(const Model& model, std::ostream& out) {
+  auto field = [](const std::string& text) {
+    if (text.find_first_of(",\"\r\n") == std::string::npos) return text;
+    std::string quoted = "\"";
+    for (char c : text) quoted += c == '"' ? std::string("\"\"") : std::string(1, c);
+    return quoted + "\"";
+  };
+  auto line = [&](const std::string& name, const char* kind, const Label& label) {
+    if (label.empty()) return;
+    out << field(name) << ',' << kind << ',' << field(label.statement) << ',' << field(label.unit) << ','
+        << field(label.group) << ',' << (label.hard ? (*label.hard ? "yes" : "no") : "") << '\n';
+  };
+  out << "name,kind,statement,unit,group,hard\n";
+  line(model.objective.name, "row", model.objective.label);
+  for (const Row& row : model.rows) line(row.name, "row", row.label);
+  for (const Column& column : model.columns) {
+    line(column.name, "column", column.label);
+    line(column.name, "lower", column.lower_label);
+    line(column.name, "upper", column.upper_label);
+  }
+}
+
 }  // namespace plumb::model

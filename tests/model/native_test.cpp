@@ -1,4 +1,5 @@
 // The native model format (docs/model-format.md): every construct, its errors and round trips.
+#include "model/expect_input_error.hpp"
 #include "model/parsers.hpp"
 #include "plumb/model/read.hpp"
 
@@ -15,6 +16,8 @@ using plumb::model::Model;
 using plumb::model::Rational;
 using plumb::model::Sense;
 using plumb::model::Side;
+using plumb::test::BadInput;
+using plumb::test::expect_error_at;
 
 Model parse(const std::string& text) { return plumb::model::detail::parse_plumb(text, "test.plumb"); }
 
@@ -226,20 +229,6 @@ TEST(NativeFormat, RecognisedByContent) {
   EXPECT_FALSE(looks_like_plumb("variables x\n"));
 }
 
-// A malformed input and the one error it must give: where, and a phrase of the message.
-struct BadInput {
-  const char* input;  // text, or a file name under tests/data/bad/
-  long line, column;
-  const char* phrase;
-};
-
-void expect_error_at(const InputError& e, const std::string& file, const BadInput& c) {
-  EXPECT_EQ(e.where().file, file) << c.input;
-  EXPECT_EQ(e.where().line, c.line) << c.input << "\n" << e.what();
-  EXPECT_EQ(e.where().column, c.column) << c.input << "\n" << e.what();
-  EXPECT_NE(std::string(e.what()).find(c.phrase), std::string::npos) << c.input << "\n" << e.what();
-}
-
 // Each malformed input: one error at the right place, naming what was found and expected.
 TEST(NativeFormatErrors, InlineMistakes) {
   const BadInput cases[] = {
@@ -428,6 +417,41 @@ TEST(NativeCorpus, SummerBlendHoldsAtTheHandComputedOptimum) {
     }
   }
   EXPECT_TRUE(round_trip(m).same_content(m));
+}
+
+}  // namespace
+
+namespace {
+
+// Farkas' lemma (J. Farkas, "Theorie der einfachen Ungleichungen", J. reine angew. Math. 124,
+// 1902): multipliers y on the rows, >= 0 on '<=' rows, give y.A x <= y.b for every x that meets
+// them; when even the least value of y.A x over the bounds exceeds y.b, nothing meets them all.
+TEST(NativeCorpus, TightBlendIsInfeasibleByAHandDerivedCombination) {
+  Model m = plumb::model::read_model(std::string(PLUMB_CORPUS_DIR) + "/summer-blend-tight.plumb");
+  // Worked by hand: vapour pressure once, the batch size -12.15 times, the ethanol share -6.5 times.
+  std::vector<std::pair<std::string, Rational>> multipliers = {
+      {"vapour_pressure", 1}, {"batch", Rational(-1215, 100)}, {"ethanol_share", Rational(-13, 2)}};
+  std::vector<Rational> combined(static_cast<std::size_t>(m.column_count()), Rational(0));
+  Rational limit = 0;
+  for (const auto& [name, y] : multipliers) {
+    int i = row(m, name);
+    const auto& r = m.rows[i];
+    ASSERT_TRUE(y >= 0 ? r.upper.has_value() : r.lower == r.upper) << name;  // '<=' rows or equations
+    limit += y * *r.upper;
+    auto positions = m.matrix.row_positions(i);
+    auto columns = m.matrix.row_columns(i);
+    for (std::size_t k = 0; k < columns.size(); ++k) combined[columns[k]] += y * m.matrix.value(positions[k]);
+  }
+  Rational least = 0;  // of combined.x over the bounds
+  for (int j = 0; j < m.column_count(); ++j) {
+    const Side& bound = combined[j] > 0 ? m.columns[j].lower : m.columns[j].upper;
+    if (combined[j] == 0) continue;
+    ASSERT_TRUE(bound.has_value()) << m.columns[j].name;
+    least += combined[j] * *bound;
+  }
+  EXPECT_EQ(least, -62200);
+  EXPECT_EQ(limit, -67800);
+  EXPECT_GT(least, limit);
 }
 
 }  // namespace
