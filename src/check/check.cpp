@@ -18,6 +18,8 @@ using numeric::Rational;
 
 enum class Kind { row, column };
 
+std::string in_parentheses(const std::string& note) { return note.empty() ? "" : " (" + note + ")"; }
+
 // Names resolved to a dense vector; an unknown or repeated name fails.
 std::vector<Rational> dense(const Model& m, const NamedValues& values, Kind kind, const char* part) {
   const char* noun = kind == Kind::row ? "row" : "column";
@@ -155,9 +157,10 @@ Verdict verify_optimal(const Model& m, const Certificate& c, const detail::Objec
   if (!c.objective) throw Failure{"objective: an optimal certificate must state it"};
   if (*c.objective != value)
     throw Failure{"objective: the certificate states " + amount(*c.objective) + ", but the objective at x is " +
-                  amount(value) + objective.constant_note()};
+                  amount(value) + in_parentheses(objective.constant_note())};
+  std::string note = objective.constant_note();
   return {true, "optimal: objective " + amount(value) + " is attained by x and no feasible point is better " +
-                    "(the dual bound equals it)" + objective.constant_note(), ""};
+                    "(the dual bound equals it" + (note.empty() ? "" : "; " + note) + ")", ""};
 }
 
 Verdict verify_infeasible(const Model& m, const Certificate& c) {
@@ -205,7 +208,7 @@ Verdict verify_feasible(const Model& m, const Certificate& c, const detail::Obje
   std::vector<Rational> x = dense(m, c.x, Kind::column, "x");
   require_feasible(m, x);
   return {true, "feasible: x meets every row and bound, with objective " + amount(objective.at(x)) +
-                    objective.constant_note(), ""};
+                    in_parentheses(objective.constant_note()), ""};
 }
 
 }  // namespace

@@ -43,8 +43,8 @@ Rational Objective::direction(const Rational& slope) const {
 
 std::string Objective::constant_note() const {
   if (constant_ == model_.objective.constant) return "";
-  return " (the objective includes the certificate's constant " + amount(constant_) + "; the model as read has " +
-         amount(model_.objective.constant) + ")";
+  return "the objective includes the certificate's constant " + amount(constant_) + ", the model as read has " +
+         amount(model_.objective.constant);
 }
 
 }  // namespace plumb::check::detail

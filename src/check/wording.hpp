@@ -34,7 +34,8 @@ class Objective {
   Rational at(const std::vector<Rational>& x) const;        // c.x + constant
   Rational from_min_form(const Rational& cost) const;       // c'.x back to the model's terms
   Rational direction(const Rational& slope) const;          // c'.r back to the model's c.r
-  std::string constant_note() const;                        // "" unless the constants differ
+  // "the objective includes the certificate's constant K, the model as read has M", or "" when equal.
+  std::string constant_note() const;
 
  private:
   const model::Model& model_;
