@@ -4,6 +4,7 @@
 #include "plumb/model/error.hpp"
 #include "strict_json.hpp"
 
+#include <filesystem>
 #include <fstream>
 #include <limits>
 #include <stdexcept>
@@ -228,17 +229,19 @@ Certificate parse_certificate(std::string_view text, const std::string& file, co
 
 Certificate read_certificate(const std::string& path, const ReadLimits& limits) {
   std::ifstream in(path, std::ios::binary);
-  if (!in) throw model::InputError({path}, "a file that cannot be opened", "a readable certificate file");
-  in.seekg(0, std::ios::end);
-  std::streamoff size = in.tellg();
-  if (size < 0) throw model::InputError({path}, "a file whose size cannot be read", "a regular file");
-  if (static_cast<std::size_t>(size) > limits.max_bytes)
-    throw model::InputError({path}, std::to_string(size) + " bytes",
-                            "a certificate of at most " + std::to_string(limits.max_bytes) + " bytes");
-  std::string text(static_cast<std::size_t>(size), '\0');
-  in.seekg(0);
-  in.read(text.data(), size);
-  if (!in) throw model::InputError({path}, "a read error", "a readable certificate file");
+  if (!in || std::filesystem::is_directory(path))
+    throw model::InputError({path}, "a file that cannot be opened", "a readable certificate file");
+  // Read in chunks rather than by the reported size, so pipes work and a file growing meanwhile
+  // still stops at the limit.
+  std::string text;
+  char buffer[1 << 16];
+  while (in.read(buffer, sizeof buffer) || in.gcount() > 0) {
+    text.append(buffer, static_cast<std::size_t>(in.gcount()));
+    if (text.size() > limits.max_bytes)
+      throw model::InputError({path}, "more than " + std::to_string(limits.max_bytes) + " bytes",
+                              "a certificate of at most " + std::to_string(limits.max_bytes) + " bytes");
+  }
+  if (in.bad()) throw model::InputError({path}, "a read error", "a readable certificate file");
   return parse_certificate(text, path, limits);
 }
 

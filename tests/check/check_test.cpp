@@ -282,3 +282,23 @@ TEST(CheckNames, RepeatedAndSpacedNames) {
 }
 
 }  // namespace
+
+namespace {
+
+TEST(CheckWording, FailuresQuoteTheOwnersStatement) {
+  auto m = chvatal();
+  m.rows[0].label.statement = "machine hours stay within the 5 available";
+  Certificate c = read(chvatal_optimal);
+  c.x[0].second = 3;
+  expect_rejected(m, {"over the hours", c,
+                      "row c1 (\"machine hours stay within the 5 available\"): a.x = 7 is above its upper side 5 by 2"});
+}
+
+TEST(CheckWording, ValidCertificateOfAnotherStatusSaysWhatItProves) {
+  // Asked about optimality, handed a proof of infeasibility: the verdict leads with what is proven.
+  auto verdict = verify(infeasible_pair(), read(infeasible_pair_farkas));
+  ASSERT_TRUE(verdict.valid);
+  EXPECT_EQ(verdict.proven.rfind("infeasible: ", 0), 0u) << verdict.proven;
+}
+
+}  // namespace
