@@ -1,7 +1,135 @@
-// The solve path: to be written.
+// The one solve path: float search for a basis, exact certification and repair from it, exact
+// fallback; then the certificate and its independent check.
 #include "plumb/exact/solve.hpp"
 
+#include "engine.hpp"
+#include "plumb/simplex/float_simplex.hpp"
+
+#include <chrono>
+
 namespace plumb::exact {
-Solution solve(const model::Model&, const SolveOptions&) { return {}; }
-certificate::Certificate make_certificate(const model::Model&, const Solution&) { return {}; }
+namespace {
+
+double seconds_since(std::chrono::steady_clock::time_point start) {
+  return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+}
+
+// Runs the exact engine from the given basis (or from the logical basis when null).
+Solution run_exact(const model::Model& model, const SolveOptions& options, const simplex::Basis* start) {
+  auto clock = std::chrono::steady_clock::now();
+  detail::Engine engine(model, options.budget, &options.progress);
+  bool repaired = false;
+  if (start) repaired = engine.start_from(*start);
+  else engine.start_from_logicals();
+  detail::EngineResult result = engine.run();
+
+  Solution solution;
+  solution.outcome = result.outcome;
+  solution.x = std::move(result.x);
+  solution.y = std::move(result.y);
+  solution.ray = std::move(result.ray);
+  solution.basis = std::move(result.basis);
+  solution.stop_reason = result.stop_reason;
+  solution.stats.exact_iterations = result.iterations;
+  solution.stats.phase = result.phase;
+  solution.stats.repaired = start && (repaired || result.iterations > 0);
+  (start ? solution.stats.certify_seconds : solution.stats.exact_seconds) = seconds_since(clock);
+  if (solution.outcome == Outcome::optimal) solution.objective = model.objective_value(solution.x);
+  return solution;
+}
+
+certificate::NamedValues named_nonzeros(const std::vector<Rational>& values, auto name_of) {
+  certificate::NamedValues named;
+  for (std::size_t k = 0; k < values.size(); ++k)
+    if (values[k] != 0) named.emplace_back(name_of(k), values[k]);
+  return named;
+}
+
+}  // namespace
+
+Solution solve(const model::Model& model, const SolveOptions& options) {
+  if (options.warm_start) return run_exact(model, options, options.warm_start);
+  if (options.method == Method::exact) return run_exact(model, options, nullptr);
+
+  auto clock = std::chrono::steady_clock::now();
+  simplex::FloatOptions search;
+  search.budget = options.budget;
+  if (options.progress) {
+    search.progress = [&options](const simplex::FloatProgress& p) {
+      options.progress(Progress{"float " + p.phase, p.iterations, p.objective, p.infeasibility, 0});
+    };
+  }
+  simplex::FloatResult found = simplex::solve_float(model, search);
+  double float_seconds = seconds_since(clock);
+  Solution solution;
+  if (found.status == simplex::FloatStatus::stopped) {
+    solution.stop_reason = options.budget ? options.budget->reason() : run::StopReason::interrupted;
+    solution.stats.phase = "float search";
+  } else if (found.status == simplex::FloatStatus::failed) {
+    solution = run_exact(model, options, nullptr);
+    solution.stats.fell_back = true;
+    solution.stats.float_note = found.note;
+  } else {
+    solution = run_exact(model, options, &found.basis);
+  }
+  solution.stats.float_seconds = float_seconds;
+  solution.stats.float_iterations = found.iterations;
+  return solution;
+}
+
+certificate::Certificate make_certificate(const model::Model& model, const Solution& solution) {
+  certificate::Certificate proof;
+  proof.model.file = model.source.path;
+  proof.model.sha256 = model.source.sha256;
+  proof.model.rows = model.row_count();
+  proof.model.columns = model.column_count();
+  proof.model.objective_constant = model.objective.constant;
+  auto column_name = [&model](std::size_t j) { return model.columns[j].name; };
+  auto row_name = [&model](std::size_t i) { return model.rows[i].name; };
+  switch (solution.outcome) {
+    case Outcome::optimal:
+      proof.status = certificate::Status::optimal;
+      proof.objective = solution.objective;
+      proof.x = named_nonzeros(solution.x, column_name);
+      proof.y = named_nonzeros(solution.y, row_name);
+      break;
+    case Outcome::infeasible:
+      proof.status = certificate::Status::infeasible;
+      proof.y = named_nonzeros(solution.y, row_name);
+      break;
+    case Outcome::unbounded:
+      proof.status = certificate::Status::unbounded;
+      proof.x = named_nonzeros(solution.x, column_name);
+      proof.ray = named_nonzeros(solution.ray, column_name);
+      break;
+    case Outcome::stopped:
+      throw std::logic_error("make_certificate: a stopped solve proves nothing");
+  }
+  return proof;
+}
+
+CertifiedSolution certified_solve(const model::Model& model, const SolveOptions& options) {
+  CertifiedSolution result;
+  result.solution = solve(model, options);
+  for (int attempt = 0;; ++attempt) {
+    if (result.solution.outcome == Outcome::stopped) {
+      result.certificate = {};
+      result.verdict = {false, "", "stopped before a result: " + run::describe(result.solution.stop_reason)};
+      return result;
+    }
+    result.certificate = make_certificate(model, result.solution);
+    result.verdict = check::verify(model, result.certificate);
+    if (result.verdict.valid) return result;
+    bool pure = options.method == Method::exact && !options.warm_start;
+    result.rejections.push_back("the checker rejected the " + std::string(pure || attempt > 0 ? "exact engine's" : "solve path's") +
+                                " " + certificate::to_string(result.certificate.status) +
+                                " result: " + result.verdict.failure);
+    if (pure || attempt > 0) return result;
+    SolveOptions from_scratch = options;
+    from_scratch.method = Method::exact;
+    from_scratch.warm_start = nullptr;
+    result.solution = solve(model, from_scratch);
+  }
+}
+
 }  // namespace plumb::exact

@@ -2,6 +2,7 @@
 #pragma once
 
 #include "plumb/certificate/certificate.hpp"
+#include "plumb/check/check.hpp"
 #include "plumb/model/model.hpp"
 #include "plumb/run/budget.hpp"
 #include "plumb/simplex/basis.hpp"
@@ -45,6 +46,8 @@ struct SolveStats {
   long exact_iterations = 0;
   bool repaired = false;       // the float basis needed exact pivots
   bool fell_back = false;      // the float phase failed and the exact engine solved from scratch
+  std::string float_note;      // why the float phase failed, when it did
+  std::string phase;           // the exact phase last run (how far a stopped solve got)
 };
 
 // Values are in the minimisation form of docs/certificates.md (c' = c, or -c when maximising).
@@ -59,9 +62,28 @@ struct Solution {
   run::StopReason stop_reason = run::StopReason::none;
 };
 
+// Solves the LP relaxation exactly (integer markers are ignored).  Throws std::invalid_argument
+// when a row or column has its lower bound above its upper bound.
 Solution solve(const model::Model& model, const SolveOptions& options = {});
 
-// The certificate proving a solution's outcome (not for Outcome::stopped).
+// The certificate proving a solution's outcome (not for Outcome::stopped): model identity from
+// model.source, names in model order, only non-zero values.
 certificate::Certificate make_certificate(const model::Model& model, const Solution& solution);
+
+// A solve whose result has passed the independent checker.
+struct CertifiedSolution {
+  Solution solution;
+  certificate::Certificate certificate;  // empty when stopped
+  check::Verdict verdict;                // valid unless stopped or even the pure engine failed
+  // Checker rejections of a solver result: each is a bug, reported loudly by the caller.  After
+  // one, the pure exact engine solved again from scratch.
+  std::vector<std::string> rejections;
+  bool certified() const { return verdict.valid; }
+};
+
+// The one path every command uses: solve, build the certificate, verify it independently, and
+// fall back to the pure exact engine when verification fails.  Never yields an unverified result
+// as certified.
+CertifiedSolution certified_solve(const model::Model& model, const SolveOptions& options = {});
 
 }  // namespace plumb::exact

@@ -1,0 +1,575 @@
+#include "engine.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <stdexcept>
+
+namespace plumb::exact::detail {
+namespace {
+
+// Refactorize after this many eta updates: exact etas grow in size, a fresh LU stays sparse.
+constexpr int refactor_interval = 64;
+// Degenerate pivots in a row before Bland's rule takes over.
+constexpr int degenerate_run_limit = 24;
+// Pricing candidates whose estimated reduced cost is below this are left to the exact scan.
+constexpr double pricing_tolerance = 1e-9;
+// How many of the best-estimated candidates are tried exactly before a full exact scan.
+constexpr int pricing_tries = 8;
+
+}  // namespace
+
+Engine::Engine(const model::Model& model, run::Budget* budget, const std::function<void(const Progress&)>* progress)
+    : model_(model), budget_(budget), progress_(progress), n_(model.column_count()), m_(model.row_count()) {
+  lower_.resize(static_cast<std::size_t>(total()));
+  upper_.resize(static_cast<std::size_t>(total()));
+  fixed_.assign(static_cast<std::size_t>(total()), 0);
+  for (int j = 0; j < n_; ++j) {
+    const auto& column = model.columns[j];
+    lower_[j] = column.lower ? &*column.lower : nullptr;
+    upper_[j] = column.upper ? &*column.upper : nullptr;
+  }
+  for (int i = 0; i < m_; ++i) {
+    const auto& row = model.rows[i];
+    lower_[n_ + i] = row.lower ? &*row.lower : nullptr;
+    upper_[n_ + i] = row.upper ? &*row.upper : nullptr;
+  }
+  for (int k = 0; k < total(); ++k) {
+    if (lower_[k] && upper_[k]) {
+      if (*lower_[k] > *upper_[k]) {
+        std::string what = k < n_ ? "column " + model.columns[k].name : "row " + model.rows[k - n_].name;
+        throw std::invalid_argument(what + " has its lower bound above its upper bound");
+      }
+      fixed_[k] = *lower_[k] == *upper_[k];
+    }
+  }
+  bool maximise = model.objective.sense == model::Sense::maximise;
+  cost_.resize(static_cast<std::size_t>(total()));
+  cost_estimate_.assign(static_cast<std::size_t>(total()), 0.0);
+  for (int j = 0; j < n_; ++j) {
+    cost_[j] = maximise ? Rational(-model.objective.coefficients[j]) : model.objective.coefficients[j];
+    cost_estimate_[j] = numeric::to_double(cost_[j]);
+  }
+  matrix_estimate_.reserve(model.matrix.nonzeros());
+  for (int j = 0; j < n_; ++j)
+    for (const Rational& a : model.matrix.column_values(j)) matrix_estimate_.push_back(numeric::to_double(a));
+  value_.assign(static_cast<std::size_t>(total()), Rational(0));
+  status_.assign(static_cast<std::size_t>(total()), VarStatus::at_zero);
+  position_.assign(static_cast<std::size_t>(total()), -1);
+  rows_.resize(m_);
+  positions_.resize(m_);
+  alpha_.resize(m_);
+  duals_.resize(m_);
+  pivot_row_.resize(total());
+  dual_estimate_.assign(static_cast<std::size_t>(m_), 0.0);
+}
+
+void Engine::scatter_column(int k, SparseVector& target) const {
+  if (k >= n_) {
+    target.at(k - n_) = -1;
+    return;
+  }
+  auto rows = model_.matrix.column_rows(k);
+  auto values = model_.matrix.column_values(k);
+  for (std::size_t e = 0; e < rows.size(); ++e) target.at(rows[e]) = values[e];
+}
+
+// Puts a nonbasic variable at the bound asked for when it exists, else at the other, else zero.
+void Engine::rest_nonbasic(int k, VarStatus wanted) {
+  position_[k] = -1;
+  if (wanted == VarStatus::at_upper && !upper_[k]) wanted = VarStatus::at_lower;
+  if ((wanted == VarStatus::at_lower || wanted == VarStatus::at_zero || wanted == VarStatus::basic) && !lower_[k])
+    wanted = upper_[k] ? VarStatus::at_upper : VarStatus::at_zero;
+  else if (wanted == VarStatus::at_zero || wanted == VarStatus::basic)
+    wanted = VarStatus::at_lower;
+  status_[k] = wanted;
+  if (wanted == VarStatus::at_lower) value_[k] = *lower_[k];
+  else if (wanted == VarStatus::at_upper) value_[k] = *upper_[k];
+  else value_[k] = 0;
+}
+
+void Engine::refactor() {
+  std::vector<SparseColumn> columns(static_cast<std::size_t>(m_));
+  for (int p = 0; p < m_; ++p) {
+    int k = head_[p];
+    if (k >= n_) {
+      columns[p].rows = {k - n_};
+      columns[p].values = {Rational(-1)};
+      continue;
+    }
+    auto rows = model_.matrix.column_rows(k);
+    auto values = model_.matrix.column_values(k);
+    columns[p].rows.assign(rows.begin(), rows.end());
+    columns[p].values.assign(values.begin(), values.end());
+  }
+  factor_.factorize(m_, columns);
+  if (!factor_.nonsingular()) throw std::logic_error("exact simplex: basis became singular");
+}
+
+// Factorizes the given basic variables; dependent ones leave, logicals of uncovered rows enter.
+bool Engine::install_basis(std::vector<int> basic_variables) {
+  bool repaired = static_cast<int>(basic_variables.size()) != m_;
+  for (int attempt = 0;; ++attempt) {
+    std::vector<SparseColumn> columns(basic_variables.size());
+    for (std::size_t p = 0; p < basic_variables.size(); ++p) {
+      int k = basic_variables[p];
+      if (k >= n_) {
+        columns[p].rows = {k - n_};
+        columns[p].values = {Rational(-1)};
+        continue;
+      }
+      auto rows = model_.matrix.column_rows(k);
+      auto values = model_.matrix.column_values(k);
+      columns[p].rows.assign(rows.begin(), rows.end());
+      columns[p].values.assign(values.begin(), values.end());
+    }
+    factor_.factorize(m_, columns);
+    if (factor_.nonsingular() && static_cast<int>(basic_variables.size()) == m_) break;
+    if (attempt > 2) throw std::logic_error("exact simplex: basis repair did not converge");
+    repaired = true;
+    std::vector<char> drop(basic_variables.size(), 0);
+    for (int p : factor_.dependent_columns()) drop[p] = 1;
+    std::vector<int> kept;
+    for (std::size_t p = 0; p < basic_variables.size(); ++p) {
+      if (drop[p]) rest_nonbasic(basic_variables[p], VarStatus::at_lower);
+      else kept.push_back(basic_variables[p]);
+    }
+    for (int r : factor_.uncovered_rows()) kept.push_back(n_ + r);
+    std::sort(kept.begin(), kept.end());
+    basic_variables = std::move(kept);
+  }
+  head_ = std::move(basic_variables);
+  for (int p = 0; p < m_; ++p) {
+    position_[head_[p]] = p;
+    status_[head_[p]] = VarStatus::basic;
+  }
+  compute_basic_values();
+  return repaired;
+}
+
+void Engine::start_from_logicals() {
+  std::fill(position_.begin(), position_.end(), -1);
+  for (int j = 0; j < n_; ++j) rest_nonbasic(j, VarStatus::at_lower);
+  std::vector<int> logicals(static_cast<std::size_t>(m_));
+  for (int i = 0; i < m_; ++i) logicals[i] = n_ + i;
+  install_basis(std::move(logicals));
+}
+
+bool Engine::start_from(const simplex::Basis& basis) {
+  std::fill(position_.begin(), position_.end(), -1);
+  bool wrong_size = basis.columns.size() != static_cast<std::size_t>(n_) ||
+                    basis.rows.size() != static_cast<std::size_t>(m_);
+  if (wrong_size) {
+    start_from_logicals();
+    repaired_ = true;
+    return true;
+  }
+  std::vector<int> basic_variables;
+  for (int k = 0; k < total(); ++k) {
+    VarStatus wanted = k < n_ ? basis.columns[k] : basis.rows[k - n_];
+    if (wanted == VarStatus::basic) basic_variables.push_back(k);
+    else rest_nonbasic(k, wanted);
+  }
+  repaired_ = install_basis(std::move(basic_variables));
+  return repaired_;
+}
+
+void Engine::compute_basic_values() {
+  rows_.clear();
+  for (int k = 0; k < total(); ++k) {
+    if (basic(k) || is_zero(value_[k])) continue;
+    if (k >= n_) {
+      rows_.at(k - n_) += value_[k];
+      continue;
+    }
+    auto rows = model_.matrix.column_rows(k);
+    auto values = model_.matrix.column_values(k);
+    for (std::size_t e = 0; e < rows.size(); ++e) subtract_product(rows_.at(rows[e]), values[e], value_[k], scratch_);
+  }
+  factor_.ftran(rows_, positions_);
+  for (int p = 0; p < m_; ++p) value_[head_[p]] = positions_[p];
+  positions_.clear();
+}
+
+bool Engine::infeasible_basis() const {
+  for (int k : head_)
+    if (below(k) || above(k)) return true;
+  return false;
+}
+
+// y solves B^T y = c_B, with the phase-1 costs (-1 below a bound, +1 above) or c'.
+void Engine::compute_duals(bool phase_one) {
+  positions_.clear();
+  for (int p = 0; p < m_; ++p) {
+    int k = head_[p];
+    if (phase_one) {
+      if (below(k)) positions_.at(p) = -1;
+      else if (above(k)) positions_.at(p) = 1;
+    } else if (!is_zero(cost_[k])) {
+      positions_.at(p) = cost_[k];
+    }
+  }
+  factor_.btran(positions_, duals_);
+}
+
+// d_k = c_k - M_k^T y (phase-1 costs of nonbasic variables are zero).
+void Engine::reduced_cost(int k, bool phase_one, Rational& out) {
+  if (k >= n_) {
+    out = duals_[k - n_];
+    return;
+  }
+  if (phase_one) out = 0;
+  else out = cost_[k];
+  auto rows = model_.matrix.column_rows(k);
+  auto values = model_.matrix.column_values(k);
+  for (std::size_t e = 0; e < rows.size(); ++e) {
+    const Rational& y = duals_[rows[e]];
+    if (!is_zero(y)) subtract_product(out, values[e], y, scratch_);
+  }
+}
+
+bool Engine::eligible(int k, const Rational& d) const {
+  if (fixed_[k]) return false;
+  switch (status_[k]) {
+    case VarStatus::at_lower: return sign_of(d) < 0;
+    case VarStatus::at_upper: return sign_of(d) > 0;
+    case VarStatus::at_zero: return sign_of(d) != 0;
+    case VarStatus::basic: return false;
+  }
+  return false;
+}
+
+bool Engine::poll(const char* phase) {
+  phase_ = phase;
+  if (budget_ && budget_->exhausted()) return false;
+  if (progress_ && *progress_ && iterations_ % 50 == 0) {
+    Progress progress;
+    progress.phase = phase;
+    progress.iterations = iterations_;
+    for (int j = 0; j < n_; ++j)
+      if (cost_estimate_[j] != 0) progress.objective += cost_estimate_[j] * numeric::to_double(value_[j]);
+    if (model_.objective.sense == model::Sense::maximise) progress.objective = -progress.objective;
+    progress.objective += numeric::to_double(model_.objective.constant);
+    for (int k : head_) {
+      if (below(k)) progress.infeasibility += numeric::to_double(*lower_[k] - value_[k]);
+      else if (above(k)) progress.infeasibility += numeric::to_double(value_[k] - *upper_[k]);
+    }
+    if (budget_) progress.elapsed_seconds = budget_->elapsed_seconds();
+    (*progress_)(progress);
+  }
+  if (factor_.updates() >= refactor_interval) refactor();
+  return true;
+}
+
+// The basic variable at leaving_position leaves at the given bound; `entering` takes its place.
+// alpha_ must hold B^{-1} times the entering column.
+void Engine::exchange(int entering, int leaving_position, VarStatus leaving_status) {
+  int leaving = head_[leaving_position];
+  status_[leaving] = leaving_status;
+  position_[leaving] = -1;
+  value_[leaving] = leaving_status == VarStatus::at_lower ? *lower_[leaving] : *upper_[leaving];
+  head_[leaving_position] = entering;
+  position_[entering] = leaving_position;
+  status_[entering] = VarStatus::basic;
+  factor_.update(leaving_position, alpha_);
+}
+
+Engine::Step Engine::primal() {
+  std::vector<std::pair<double, int>> candidates;
+  for (;;) {
+    bool phase_one = infeasible_basis();
+    if (!poll(phase_one ? "exact primal phase 1" : "exact primal")) return Step::stopped;
+    compute_duals(phase_one);
+
+    // Pricing: Dantzig's rule on double estimates, every choice confirmed exactly.
+    int entering = -1;
+    if (!bland_) {
+      for (int i = 0; i < m_; ++i) dual_estimate_[i] = 0;
+      for (int i : duals_.pattern()) dual_estimate_[i] = numeric::to_double(duals_[i]);
+      candidates.clear();
+      std::size_t entry = 0;
+      for (int j = 0; j < n_; ++j) {
+        auto rows = model_.matrix.column_rows(j);
+        if (basic(j) || fixed_[j]) {
+          entry += rows.size();
+          continue;
+        }
+        double d = phase_one ? 0.0 : cost_estimate_[j];
+        for (int r : rows) d -= matrix_estimate_[entry++] * dual_estimate_[r];
+        bool wanted = status_[j] == VarStatus::at_lower ? d < -pricing_tolerance
+                      : status_[j] == VarStatus::at_upper ? d > pricing_tolerance
+                                                          : std::abs(d) > pricing_tolerance;
+        if (wanted) candidates.emplace_back(-std::abs(d), j);
+      }
+      for (int i = 0; i < m_; ++i) {
+        int k = n_ + i;
+        if (basic(k) || fixed_[k]) continue;
+        double d = dual_estimate_[i];
+        bool wanted = status_[k] == VarStatus::at_lower ? d < -pricing_tolerance
+                      : status_[k] == VarStatus::at_upper ? d > pricing_tolerance
+                                                          : std::abs(d) > pricing_tolerance;
+        if (wanted) candidates.emplace_back(-std::abs(d), k);
+      }
+      std::size_t tries = std::min<std::size_t>(candidates.size(), pricing_tries);
+      std::partial_sort(candidates.begin(), candidates.begin() + static_cast<long>(tries), candidates.end());
+      for (std::size_t c = 0; c < tries && entering < 0; ++c) {
+        reduced_cost(candidates[c].second, phase_one, d_);
+        if (eligible(candidates[c].second, d_)) entering = candidates[c].second;
+      }
+    }
+    if (entering < 0) {
+      // Exact scan: the lowest eligible index under Bland's rule, else the largest |d|.
+      double best = -1;
+      for (int k = 0; k < total(); ++k) {
+        if (basic(k) || fixed_[k]) continue;
+        reduced_cost(k, phase_one, ratio_);
+        if (!eligible(k, ratio_)) continue;
+        if (bland_) {
+          entering = k;
+          d_ = ratio_;
+          break;
+        }
+        double size = std::abs(numeric::to_double(ratio_));
+        if (size > best) best = size, entering = k, d_ = ratio_;
+      }
+    }
+    if (entering < 0) {
+      if (phase_one) {
+        farkas_.assign(static_cast<std::size_t>(m_), Rational(0));
+        for (int i : duals_.pattern()) farkas_[i] = duals_[i];
+        return Step::infeasible;
+      }
+      return Step::done;
+    }
+    const int direction = status_[entering] == VarStatus::at_lower   ? 1
+                          : status_[entering] == VarStatus::at_upper ? -1
+                          : sign_of(d_) < 0                          ? 1
+                                                                     : -1;
+    rows_.clear();
+    scatter_column(entering, rows_);
+    factor_.ftran(rows_, alpha_);
+
+    // Ratio test, exact.  Basic variable at position p moves by -direction * alpha_p per unit.
+    // A feasible one blocks at the bound it moves towards; an infeasible one blocks where it
+    // becomes feasible (the first breakpoint of the phase-1 objective) and never while moving away.
+    int leaving_position = -1;
+    VarStatus leaving_status = VarStatus::at_lower;
+    bool bounded = false, flip = false;
+    double leaving_size = 0;
+    int leaving_index = 0;
+    if (lower_[entering] && upper_[entering]) {
+      best_ratio_ = *upper_[entering] - *lower_[entering];
+      bounded = flip = true;
+      leaving_index = entering;
+    }
+    for (int p : alpha_.pattern()) {
+      const Rational& a = alpha_[p];
+      int s = sign_of(a);
+      if (s == 0) continue;
+      int k = head_[p];
+      bool increasing = (s < 0) == (direction > 0);
+      const Rational* bound = nullptr;
+      VarStatus side;
+      if (increasing) {
+        if (below(k)) bound = lower_[k], side = VarStatus::at_lower;
+        else if (!above(k) && upper_[k]) bound = upper_[k], side = VarStatus::at_upper;
+        if (!bound) continue;
+        ratio_ = *bound - value_[k];
+      } else {
+        if (above(k)) bound = upper_[k], side = VarStatus::at_upper;
+        else if (!below(k) && lower_[k]) bound = lower_[k], side = VarStatus::at_lower;
+        if (!bound) continue;
+        ratio_ = value_[k] - *bound;
+      }
+      mpq_div(ratio_.backend().data(), ratio_.backend().data(), a.backend().data());
+      if (s < 0) ratio_ = -ratio_;
+      int compare = bounded ? ratio_.compare(best_ratio_) : -1;
+      bool take = compare < 0;
+      if (compare == 0) {
+        if (bland_) take = k < leaving_index;
+        else take = !flip && std::abs(numeric::to_double(a)) > leaving_size;
+      }
+      if (take) {
+        best_ratio_.backend().swap(ratio_.backend());
+        bounded = true;
+        flip = false;
+        leaving_position = p;
+        leaving_status = side;
+        leaving_size = std::abs(numeric::to_double(a));
+        leaving_index = k;
+      }
+    }
+    if (!bounded) {
+      if (phase_one) throw std::logic_error("exact simplex: phase 1 ray without a blocking variable");
+      ray_.assign(static_cast<std::size_t>(n_), Rational(0));
+      if (entering < n_) ray_[entering] = direction;
+      for (int p : alpha_.pattern())
+        if (head_[p] < n_ && !is_zero(alpha_[p])) ray_[head_[p]] = direction > 0 ? Rational(-alpha_[p]) : alpha_[p];
+      return Step::unbounded;
+    }
+    ++iterations_;
+    if (is_zero(best_ratio_)) {
+      if (++degenerate_run_ > degenerate_run_limit) bland_ = true;
+    } else {
+      degenerate_run_ = 0;
+      bland_ = false;
+      if (direction < 0) best_ratio_ = -best_ratio_;  // signed step of the entering variable
+      value_[entering] += best_ratio_;
+      for (int p : alpha_.pattern())
+        if (!is_zero(alpha_[p])) subtract_product(value_[head_[p]], alpha_[p], best_ratio_, scratch_);
+    }
+    if (flip) {
+      status_[entering] = direction > 0 ? VarStatus::at_upper : VarStatus::at_lower;
+      value_[entering] = direction > 0 ? *upper_[entering] : *lower_[entering];
+    } else {
+      exchange(entering, leaving_position, leaving_status);
+    }
+  }
+}
+
+// Flips boxed nonbasic variables whose reduced cost has the wrong sign; false when some other
+// nonbasic variable keeps a wrong sign (then the basis is not dual feasible).
+bool Engine::make_dual_feasible() {
+  compute_duals(false);
+  std::vector<int> flips;
+  for (int k = 0; k < total(); ++k) {
+    if (basic(k) || fixed_[k]) continue;
+    reduced_cost(k, false, d_);
+    if (!eligible(k, d_)) continue;
+    if (!lower_[k] || !upper_[k]) return false;
+    flips.push_back(k);
+  }
+  for (int k : flips) rest_nonbasic(k, status_[k] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower);
+  if (!flips.empty()) compute_basic_values();
+  return true;
+}
+
+Engine::Step Engine::dual() {
+  for (;;) {
+    if (!poll("exact dual")) return Step::stopped;
+    // Leaving: the basic variable with the largest violation (Bland: the lowest index).
+    int leaving_position = -1;
+    double worst = 0;
+    for (int p = 0; p < m_; ++p) {
+      int k = head_[p];
+      if (!below(k) && !above(k)) continue;
+      if (bland_) {
+        if (leaving_position < 0 || k < head_[leaving_position]) leaving_position = p;
+        continue;
+      }
+      double violation = numeric::to_double(below(k) ? *lower_[k] - value_[k] : value_[k] - *upper_[k]);
+      if (leaving_position < 0 || violation > worst) worst = violation, leaving_position = p;
+    }
+    if (leaving_position < 0) return Step::done;
+    const int leaving = head_[leaving_position];
+    const bool to_lower = below(leaving);
+
+    // rho = row leaving_position of B^{-1}; pivot row entries alpha_k = rho^T M_k.
+    positions_.clear();
+    positions_.at(leaving_position) = 1;
+    SparseVector& rho = duals_;
+    factor_.btran(positions_, rho);
+    pivot_row_.clear();
+    for (int i : rho.pattern()) {
+      const Rational& r = rho[i];
+      if (is_zero(r)) continue;
+      if (!basic(n_ + i) && !fixed_[n_ + i]) pivot_row_.at(n_ + i) = -r;
+      auto columns = model_.matrix.row_columns(i);
+      auto where = model_.matrix.row_positions(i);
+      for (std::size_t e = 0; e < columns.size(); ++e) {
+        int j = columns[e];
+        if (basic(j) || fixed_[j]) continue;
+        add_product(pivot_row_.at(j), r, model_.matrix.value(where[e]), scratch_);
+      }
+    }
+    std::vector<Rational> row_of_inverse(static_cast<std::size_t>(m_), Rational(0));
+    for (int i : rho.pattern()) row_of_inverse[i] = rho[i];
+
+    // Dual ratio test, exact: the entering variable keeps every reduced cost's sign.
+    compute_duals(false);
+    pivot_row_.tidy();
+    int entering = -1;
+    double entering_size = 0;
+    for (int k : pivot_row_.pattern()) {
+      const Rational& a = pivot_row_[k];
+      int s = sign_of(a);
+      bool candidate = status_[k] == VarStatus::at_zero ||
+                       (status_[k] == VarStatus::at_lower ? (s < 0) == to_lower : (s > 0) == to_lower);
+      if (!candidate) continue;
+      reduced_cost(k, false, ratio_);
+      mpq_div(ratio_.backend().data(), ratio_.backend().data(), a.backend().data());
+      if (sign_of(ratio_) < 0) ratio_ = -ratio_;
+      int compare = entering < 0 ? -1 : ratio_.compare(best_ratio_);
+      bool take = compare < 0;
+      if (compare == 0 && !bland_) take = std::abs(numeric::to_double(a)) > entering_size;
+      if (take) {
+        best_ratio_.backend().swap(ratio_.backend());
+        entering = k;
+        entering_size = std::abs(numeric::to_double(a));
+      }
+    }
+    if (entering < 0) {
+      // No entering variable: rho (or -rho) is a Farkas vector.
+      farkas_ = std::move(row_of_inverse);
+      if (to_lower)
+        for (Rational& v : farkas_) v = -v;
+      return Step::infeasible;
+    }
+    ++iterations_;
+    if (is_zero(best_ratio_)) {
+      if (++degenerate_run_ > degenerate_run_limit) bland_ = true;
+    } else {
+      degenerate_run_ = 0;
+      bland_ = false;
+    }
+    rows_.clear();
+    scatter_column(entering, rows_);
+    factor_.ftran(rows_, alpha_);
+    // Primal step: theta moves the leaving variable exactly onto its violated bound.
+    const Rational& bound = to_lower ? *lower_[leaving] : *upper_[leaving];
+    Rational theta = value_[leaving] - bound;
+    theta /= alpha_[leaving_position];
+    value_[entering] += theta;
+    for (int p : alpha_.pattern())
+      if (!is_zero(alpha_[p])) subtract_product(value_[head_[p]], alpha_[p], theta, scratch_);
+    exchange(entering, leaving_position, to_lower ? VarStatus::at_lower : VarStatus::at_upper);
+  }
+}
+
+void Engine::fill_result(EngineResult& result, Step step) {
+  result.iterations = iterations_;
+  result.repaired = repaired_;
+  result.phase = phase_;
+  result.x.assign(value_.begin(), value_.begin() + n_);
+  result.basis.columns.assign(status_.begin(), status_.begin() + n_);
+  result.basis.rows.assign(status_.begin() + n_, status_.end());
+  switch (step) {
+    case Step::done:
+      result.outcome = Outcome::optimal;
+      result.y.assign(static_cast<std::size_t>(m_), Rational(0));
+      for (int i : duals_.pattern()) result.y[i] = duals_[i];
+      break;
+    case Step::infeasible:
+      result.outcome = Outcome::infeasible;
+      result.y = std::move(farkas_);
+      break;
+    case Step::unbounded:
+      result.outcome = Outcome::unbounded;
+      result.ray = std::move(ray_);
+      break;
+    case Step::stopped:
+      result.outcome = Outcome::stopped;
+      result.stop_reason = budget_ ? budget_->reason() : run::StopReason::interrupted;
+      break;
+  }
+}
+
+EngineResult Engine::run() {
+  EngineResult result;
+  Step step = Step::done;
+  if (infeasible_basis() && make_dual_feasible()) step = dual();
+  if (step == Step::done) step = primal();
+  fill_result(result, step);
+  return result;
+}
+
+}  // namespace plumb::exact::detail

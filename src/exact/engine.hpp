@@ -1,0 +1,98 @@
+// Internal to the exact module: the bounded revised simplex over rationals on the model's own form.
+#pragma once
+
+#include "factor.hpp"
+#include "plumb/exact/solve.hpp"
+#include "plumb/model/model.hpp"
+#include "plumb/run/budget.hpp"
+#include "plumb/simplex/basis.hpp"
+
+#include <functional>
+#include <string>
+#include <vector>
+
+namespace plumb::exact::detail {
+
+using simplex::VarStatus;
+
+struct EngineResult {
+  Outcome outcome = Outcome::stopped;
+  std::vector<Rational> x, y, ray;  // as in exact::Solution
+  simplex::Basis basis;
+  long iterations = 0;
+  bool repaired = false;  // the starting basis was singular or of the wrong size
+  std::string phase;      // the phase it was in when it finished or stopped
+  run::StopReason stop_reason = run::StopReason::none;
+};
+
+// Variables are the model's columns x_j (0..n-1) and one logical r_i = a_i.x per row (n+i), so the
+// system is A x - r = 0 with every variable between its own bounds.  Bounded-variable primal
+// simplex with a composite phase 1 (minimise the sum of the basic variables' bound violations;
+// V. Chvatal, Linear Programming, 1983, ch. 8; I. Maros, Computational Techniques of the Simplex
+// Method, 2003, ch. 9), and a bounded dual simplex for dual feasible starts (C. E. Lemke, "The dual
+// method of solving the linear programming problem", 1954).  Every sign and ratio is decided in
+// exact arithmetic; doubles only rank pricing candidates.  After a run of degenerate pivots the
+// choices follow Bland's rule (R. G. Bland, "New finite pivoting rules for the simplex method",
+// Math. of OR 2, 1977) until progress resumes, so the method cannot cycle.
+class Engine {
+ public:
+  Engine(const model::Model& model, run::Budget* budget, const std::function<void(const Progress&)>* progress);
+
+  // Starts from the all-logical basis, columns resting at a finite bound (or zero when free).
+  void start_from_logicals();
+  // Starts from a given basis; one of the wrong size or singular is repaired by putting logicals
+  // in place of dependent columns.  Returns true when a repair was needed.
+  bool start_from(const simplex::Basis& basis);
+
+  // Runs from the current basis: nothing when it is already optimal, dual simplex when it is dual
+  // feasible, otherwise primal simplex with phase 1 as needed.
+  EngineResult run();
+
+ private:
+  enum class Step { done, infeasible, unbounded, stopped };
+  int total() const { return n_ + m_; }
+  bool basic(int k) const { return position_[k] >= 0; }
+  bool below(int k) const { return lower_[k] && value_[k] < *lower_[k]; }
+  bool above(int k) const { return upper_[k] && value_[k] > *upper_[k]; }
+  bool infeasible_basis() const;
+  void scatter_column(int k, SparseVector& target) const;
+  void rest_nonbasic(int k, VarStatus wanted);
+  void refactor();
+  bool install_basis(std::vector<int> basic_variables);
+  void compute_basic_values();
+  void compute_duals(bool phase_one);
+  void reduced_cost(int k, bool phase_one, Rational& out);
+  bool eligible(int k, const Rational& d) const;
+  bool make_dual_feasible();
+  Step primal();
+  Step dual();
+  bool poll(const char* phase);
+  void exchange(int entering, int leaving_position, VarStatus leaving_status);
+  void fill_result(EngineResult& result, Step step);
+
+  const model::Model& model_;
+  run::Budget* budget_;
+  const std::function<void(const Progress&)>* progress_;
+  int n_, m_;
+  std::vector<const Rational*> lower_, upper_;  // null: infinite
+  std::vector<char> fixed_;
+  std::vector<Rational> cost_;                  // c' (minimisation form), logicals 0
+  std::vector<double> cost_estimate_, matrix_estimate_;
+  std::vector<Rational> value_;
+  std::vector<VarStatus> status_;
+  std::vector<int> head_;      // basis position -> variable
+  std::vector<int> position_;  // variable -> basis position, -1 when nonbasic
+  BasisFactor factor_;
+  SparseVector rows_, positions_, alpha_, duals_, pivot_row_;
+  std::vector<double> dual_estimate_;
+  Rational scratch_, d_, ratio_, best_ratio_;
+  long iterations_ = 0;
+  int degenerate_run_ = 0;
+  bool bland_ = false;
+  bool repaired_ = false;
+  std::string phase_;
+  std::vector<Rational> farkas_;
+  std::vector<Rational> ray_;
+};
+
+}  // namespace plumb::exact::detail

@@ -1,0 +1,264 @@
+#include "factor.hpp"
+
+#include <algorithm>
+#include <cstdlib>
+#include <limits>
+
+namespace plumb::exact::detail {
+
+void SparseVector::resize(int size) {
+  values_.assign(static_cast<std::size_t>(size), Rational(0));
+  listed_.assign(static_cast<std::size_t>(size), 0);
+  index_.clear();
+}
+
+void SparseVector::clear() {
+  for (int i : index_) {
+    mpq_set_ui(values_[i].backend().data(), 0, 1);
+    listed_[i] = 0;
+  }
+  index_.clear();
+}
+
+void SparseVector::tidy() {
+  std::erase_if(index_, [this](int i) {
+    if (!is_zero(values_[i])) return false;
+    listed_[i] = 0;
+    return true;
+  });
+  std::sort(index_.begin(), index_.end());
+}
+
+namespace {
+
+void erase_value(std::vector<int>& list, int value) {
+  auto it = std::find(list.begin(), list.end(), value);
+  if (it != list.end()) {
+    *it = list.back();
+    list.pop_back();
+  }
+}
+
+bool is_unit(const Rational& value) {
+  const mpq_t& q = value.backend().data();
+  return mpz_cmp_ui(mpq_denref(q), 1) == 0 && mpz_cmpabs_ui(mpq_numref(q), 1) == 0;
+}
+
+}  // namespace
+
+void BasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
+  m_ = m;
+  const int k = static_cast<int>(columns.size());
+  pivots_.clear();
+  etas_.clear();
+  eta_nonzeros_ = 0;
+  factor_nonzeros_ = 0;
+  dependent_columns_.clear();
+  uncovered_rows_.clear();
+  upper_column_.clear();
+  pivot_of_position_.clear();
+
+  // The active submatrix, column-wise with values and row-wise as a pattern.
+  std::vector<std::vector<std::pair<int, Rational>>> active(static_cast<std::size_t>(k));
+  std::vector<std::vector<int>> row_pattern(static_cast<std::size_t>(m));
+  for (int c = 0; c < k; ++c) {
+    const SparseColumn& column = columns[c];
+    for (std::size_t e = 0; e < column.rows.size(); ++e) {
+      if (is_zero(column.values[e])) continue;
+      active[c].emplace_back(column.rows[e], column.values[e]);
+      row_pattern[column.rows[e]].push_back(c);
+    }
+  }
+  std::vector<char> column_done(static_cast<std::size_t>(k), 0), row_done(static_cast<std::size_t>(m), 0);
+  std::vector<int> where(static_cast<std::size_t>(m), -1);
+  std::vector<int> emptied;
+
+  for (;;) {
+    // Markowitz search (restricted to a few shortest columns and rows, as is common practice).
+    int min_column_count = std::numeric_limits<int>::max(), min_row_count = std::numeric_limits<int>::max();
+    for (int c = 0; c < k; ++c) {
+      if (column_done[c]) continue;
+      int count = static_cast<int>(active[c].size());
+      if (count == 0) {
+        column_done[c] = 1;
+        dependent_columns_.push_back(c);
+      } else {
+        min_column_count = std::min(min_column_count, count);
+      }
+    }
+    if (min_column_count == std::numeric_limits<int>::max()) break;
+    for (int r = 0; r < m; ++r)
+      if (!row_done[r] && !row_pattern[r].empty())
+        min_row_count = std::min(min_row_count, static_cast<int>(row_pattern[r].size()));
+
+    long best_cost = std::numeric_limits<long>::max();
+    bool best_unit = false;
+    int pivot_row = -1, pivot_column = -1;
+    auto consider = [&](int r, int c, const Rational& value) {
+      long cost = static_cast<long>(row_pattern[r].size() - 1) * static_cast<long>(active[c].size() - 1);
+      bool unit = is_unit(value);
+      if (cost < best_cost || (cost == best_cost && unit && !best_unit)) {
+        best_cost = cost, best_unit = unit, pivot_row = r, pivot_column = c;
+      }
+    };
+    constexpr int search_limit = 4;
+    int searched = 0;
+    for (int c = 0; c < k && searched < search_limit; ++c) {
+      if (column_done[c] || static_cast<int>(active[c].size()) != min_column_count) continue;
+      ++searched;
+      for (const auto& [r, value] : active[c]) consider(r, c, value);
+      if (best_cost == 0 && best_unit) break;
+    }
+    searched = 0;
+    for (int r = 0; r < m && searched < search_limit && !(best_cost == 0 && best_unit); ++r) {
+      if (row_done[r] || static_cast<int>(row_pattern[r].size()) != min_row_count) continue;
+      ++searched;
+      for (int c : row_pattern[r]) {
+        for (const auto& [row, value] : active[c])
+          if (row == r) consider(r, c, value);
+      }
+    }
+
+    Pivot pivot;
+    pivot.row = pivot_row;
+    pivot.position = pivot_column;
+    // The pivot column's other entries become the L multipliers.
+    for (auto& [r, value] : active[pivot_column]) {
+      if (r == pivot_row) {
+        pivot.value = std::move(value);
+        continue;
+      }
+      erase_value(row_pattern[r], pivot_column);
+    }
+    for (auto& [r, value] : active[pivot_column]) {
+      if (r == pivot_row) continue;
+      value /= pivot.value;
+      pivot.lower.emplace_back(r, std::move(value));
+    }
+    std::sort(pivot.lower.begin(), pivot.lower.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
+    active[pivot_column].clear();
+    column_done[pivot_column] = 1;
+    // The pivot row's other entries become a row of U.
+    std::vector<int> row_columns = std::move(row_pattern[pivot_row]);
+    row_pattern[pivot_row].clear();
+    row_done[pivot_row] = 1;
+    std::sort(row_columns.begin(), row_columns.end());
+    for (int c : row_columns) {
+      if (c == pivot_column) continue;
+      auto& entries = active[c];
+      auto it = std::find_if(entries.begin(), entries.end(), [&](const auto& e) { return e.first == pivot_row; });
+      pivot.upper_row.emplace_back(c, std::move(it->second));
+      *it = std::move(entries.back());
+      entries.pop_back();
+    }
+    // Schur complement update: a_ic -= l_i * u_c.
+    for (const auto& [c, u] : pivot.upper_row) {
+      auto& entries = active[c];
+      for (std::size_t e = 0; e < entries.size(); ++e) where[entries[e].first] = static_cast<int>(e);
+      for (const auto& [r, l] : pivot.lower) {
+        if (where[r] >= 0) {
+          Rational& target = entries[where[r]].second;
+          subtract_product(target, l, u, scratch_);
+          if (is_zero(target)) emptied.push_back(r);
+        } else {
+          mpq_mul(scratch_.backend().data(), l.backend().data(), u.backend().data());
+          where[r] = static_cast<int>(entries.size());
+          entries.emplace_back(r, -scratch_);
+          row_pattern[r].push_back(c);
+        }
+      }
+      for (const auto& e : entries) where[e.first] = -1;
+      if (!emptied.empty()) {
+        for (int r : emptied) erase_value(row_pattern[r], c);
+        std::erase_if(entries, [](const auto& e) { return is_zero(e.second); });
+        emptied.clear();
+      }
+    }
+    factor_nonzeros_ += 1 + pivot.lower.size() + pivot.upper_row.size();
+    pivots_.push_back(std::move(pivot));
+  }
+  for (int r = 0; r < m; ++r)
+    if (!row_done[r]) uncovered_rows_.push_back(r);
+  std::sort(dependent_columns_.begin(), dependent_columns_.end());
+  if (!nonsingular() || k != m) return;
+
+  upper_column_.assign(static_cast<std::size_t>(m), {});
+  pivot_of_position_.assign(static_cast<std::size_t>(m), -1);
+  for (std::size_t p = 0; p < pivots_.size(); ++p) {
+    pivot_of_position_[pivots_[p].position] = static_cast<int>(p);
+    for (const auto& [position, value] : pivots_[p].upper_row)
+      upper_column_[position].emplace_back(pivots_[p].row, value);
+  }
+}
+
+void BasisFactor::ftran(SparseVector& b, SparseVector& result) {
+  for (const Pivot& pivot : pivots_) {
+    const Rational& v = b[pivot.row];
+    if (is_zero(v)) continue;
+    for (const auto& [r, l] : pivot.lower) subtract_product(b.at(r), l, v, scratch_);
+  }
+  for (auto p = pivots_.rbegin(); p != pivots_.rend(); ++p) {
+    if (is_zero(b[p->row])) continue;
+    Rational& v = b.at(p->row);
+    mpq_div(v.backend().data(), v.backend().data(), p->value.backend().data());
+    for (const auto& [r, u] : upper_column_[p->position]) subtract_product(b.at(r), u, v, scratch_);
+  }
+  result.clear();
+  for (const Pivot& pivot : pivots_)
+    if (!is_zero(b[pivot.row])) result.swap_in(pivot.position, b.at(pivot.row));
+  b.clear();
+  for (const Eta& eta : etas_) {
+    if (is_zero(result[eta.position])) continue;
+    Rational& v = result.at(eta.position);
+    mpq_div(v.backend().data(), v.backend().data(), eta.pivot.backend().data());
+    for (const auto& [position, alpha] : eta.others) subtract_product(result.at(position), alpha, v, scratch_);
+  }
+}
+
+void BasisFactor::btran(SparseVector& c, SparseVector& result) {
+  for (auto eta = etas_.rbegin(); eta != etas_.rend(); ++eta) {
+    value_ = c[eta->position];
+    bool any = !is_zero(value_);
+    for (const auto& [position, alpha] : eta->others) {
+      const Rational& other = c[position];
+      if (is_zero(other)) continue;
+      subtract_product(value_, alpha, other, scratch_);
+      any = true;
+    }
+    if (!any) continue;
+    Rational& target = c.at(eta->position);
+    mpq_div(target.backend().data(), value_.backend().data(), eta->pivot.backend().data());
+  }
+  result.clear();
+  for (const Pivot& pivot : pivots_) {
+    if (is_zero(c[pivot.position])) continue;
+    Rational& w = result.at(pivot.row);
+    mpq_div(w.backend().data(), c[pivot.position].backend().data(), pivot.value.backend().data());
+    for (const auto& [position, u] : pivot.upper_row) subtract_product(c.at(position), u, w, scratch_);
+  }
+  c.clear();
+  for (auto p = pivots_.rbegin(); p != pivots_.rend(); ++p) {
+    bool any = false;
+    value_ = result[p->row];
+    for (const auto& [r, l] : p->lower) {
+      const Rational& other = result[r];
+      if (is_zero(other)) continue;
+      subtract_product(value_, l, other, scratch_);
+      any = true;
+    }
+    if (any) result.at(p->row) = value_;
+  }
+}
+
+void BasisFactor::update(int position, const SparseVector& alpha) {
+  Eta eta;
+  eta.position = position;
+  eta.pivot = alpha[position];
+  for (int i : alpha.pattern())
+    if (i != position && !is_zero(alpha[i])) eta.others.emplace_back(i, alpha[i]);
+  std::sort(eta.others.begin(), eta.others.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
+  eta_nonzeros_ += 1 + eta.others.size();
+  etas_.push_back(std::move(eta));
+}
+
+}  // namespace plumb::exact::detail

@@ -1,0 +1,114 @@
+// Internal to the exact engine: sparse rational vectors and the exact LU factorization of a basis.
+#pragma once
+
+#include "plumb/numeric/rational.hpp"
+
+#include <utility>
+#include <vector>
+
+namespace plumb::exact::detail {
+
+using numeric::Rational;
+
+// acc -= a * b, through a reused temporary instead of a fresh mpq per product.
+inline void subtract_product(Rational& acc, const Rational& a, const Rational& b, Rational& scratch) {
+  mpq_mul(scratch.backend().data(), a.backend().data(), b.backend().data());
+  mpq_sub(acc.backend().data(), acc.backend().data(), scratch.backend().data());
+}
+inline void add_product(Rational& acc, const Rational& a, const Rational& b, Rational& scratch) {
+  mpq_mul(scratch.backend().data(), a.backend().data(), b.backend().data());
+  mpq_add(acc.backend().data(), acc.backend().data(), scratch.backend().data());
+}
+inline bool is_zero(const Rational& value) { return mpq_sgn(value.backend().data()) == 0; }
+inline int sign_of(const Rational& value) { return mpq_sgn(value.backend().data()); }
+
+// A dense array of rationals with the list of positions that may be non-zero, so that clearing
+// and iterating cost the number of non-zeros, not the dimension.
+class SparseVector {
+ public:
+  explicit SparseVector(int size = 0) { resize(size); }
+  void resize(int size);
+  int size() const { return static_cast<int>(values_.size()); }
+  void clear();
+  // Mutable access that records the position as possibly non-zero.
+  Rational& at(int i) {
+    if (!listed_[i]) listed_[i] = 1, index_.push_back(i);
+    return values_[i];
+  }
+  const Rational& operator[](int i) const { return values_[i]; }
+  // Positions possibly non-zero (some may hold zero after cancellation), in insertion order.
+  const std::vector<int>& pattern() const { return index_; }
+  // Drops listed zeros and sorts the pattern, for deterministic traversal.
+  void tidy();
+  // Exchanges the values at a position with `value` (mpq swap: no copy).
+  void swap_in(int i, Rational& value) { at(i).backend().swap(value.backend()); }
+
+ private:
+  std::vector<Rational> values_;
+  std::vector<char> listed_;
+  std::vector<int> index_;
+};
+
+// One column of a basis matrix: row indices and values.
+struct SparseColumn {
+  std::vector<int> rows;
+  std::vector<Rational> values;
+};
+
+// Exact LU factorization of a square basis matrix, chosen for sparsity by the Markowitz rule
+// (H. M. Markowitz, "The elimination form of the inverse and its application to linear
+// programming", Management Science 3, 1957): in exact arithmetic every non-zero pivot is stable,
+// so only fill matters.  Later basis changes are kept as a product-form eta file
+// (G. B. Dantzig and W. Orchard-Hays, "The product form for the inverse in the simplex method",
+// 1954) until the next refactorization.
+class BasisFactor {
+ public:
+  // Factorizes the m x k matrix whose columns are given.  Columns found dependent on earlier
+  // ones, and columns beyond the rank, are reported in dependent_columns; rows that got no pivot
+  // in uncovered_rows.  The factor is usable only when both lists are empty and k == m.
+  void factorize(int m, const std::vector<SparseColumn>& columns);
+  const std::vector<int>& dependent_columns() const { return dependent_columns_; }
+  const std::vector<int>& uncovered_rows() const { return uncovered_rows_; }
+  bool nonsingular() const { return dependent_columns_.empty() && uncovered_rows_.empty(); }
+
+  // Solves B x = b.  b is indexed by row on entry; on return `result` holds x indexed by basis
+  // position and b is cleared.
+  void ftran(SparseVector& b, SparseVector& result);
+  // Solves B^T y = c.  c is indexed by basis position; on return `result` holds y indexed by row
+  // and c is cleared.
+  void btran(SparseVector& c, SparseVector& result);
+
+  // Records that basis position `position` now holds the column whose ftran is `alpha`.
+  void update(int position, const SparseVector& alpha);
+  int updates() const { return static_cast<int>(etas_.size()); }
+  std::size_t eta_nonzeros() const { return eta_nonzeros_; }
+  std::size_t factor_nonzeros() const { return factor_nonzeros_; }
+
+ private:
+  struct Pivot {
+    int row;
+    int position;
+    Rational value;
+    std::vector<std::pair<int, Rational>> lower;        // (row, multiplier) eliminated below
+    std::vector<std::pair<int, Rational>> upper_row;    // (position, value) of later pivots
+  };
+  struct Eta {
+    int position;
+    Rational pivot;
+    std::vector<std::pair<int, Rational>> others;  // (position, alpha) for position != pivot's
+  };
+  int m_ = 0;
+  std::vector<Pivot> pivots_;
+  // Column-wise copy of U: for each position, (row of an earlier pivot, value).
+  std::vector<std::vector<std::pair<int, Rational>>> upper_column_;
+  std::vector<int> pivot_of_position_;
+  std::vector<Eta> etas_;
+  std::vector<int> dependent_columns_;
+  std::vector<int> uncovered_rows_;
+  std::size_t eta_nonzeros_ = 0;
+  std::size_t factor_nonzeros_ = 0;
+  Rational scratch_;
+  Rational value_;
+};
+
+}  // namespace plumb::exact::detail
