@@ -79,11 +79,7 @@ Solution solve(const model::Model& model, const SolveOptions& options) {
 
 certificate::Certificate make_certificate(const model::Model& model, const Solution& solution) {
   certificate::Certificate proof;
-  proof.model.file = model.source.path;
-  proof.model.sha256 = model.source.sha256;
-  proof.model.rows = model.row_count();
-  proof.model.columns = model.column_count();
-  proof.model.objective_constant = model.objective.constant;
+  proof.model = certificate::identify(model);
   auto column_name = [&model](std::size_t j) { return model.columns[j].name; };
   auto row_name = [&model](std::size_t i) { return model.rows[i].name; };
   switch (solution.outcome) {
