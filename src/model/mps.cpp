@@ -415,15 +415,14 @@ PairLine Reader::pair_line(std::string_view line, const FreeTokens& tokens, bool
                                  ? "3 or 5 fields: a column name, then one or two (row name, value) pairs"
                                  : "2 to 5 fields: an optional set name, then one or two (row name, value) "
                                    "pairs";
-      // A name followed by a row but no value is the commonest slip: say so.
-      if (count == 2 && !head_required && find_row(tokens.token[0]) == unknown_row &&
-          find_row(tokens.token[1]) != unknown_row)
-        fail(tokens.token[1].column,
-             "a set name and row " + quoted(tokens.token[1].text) + " without a value",
-             "a value after the row name");
       fail(tokens.token[0].column, std::to_string(count) + " fields in a " + std::string(section) + " line",
            expected);
     }
+    // A set name and a row without a value reads as (row, value) with an unknown row: name the slip.
+    if (count == 2 && !head_required && find_row(tokens.token[0]) == unknown_row &&
+        find_row(tokens.token[1]) != unknown_row)
+      fail(tokens.token[1].column, "a set name and row " + quoted(tokens.token[1].text) + " without a value",
+           "a value after the row name");
     int k = 0;
     if (has_head) out.head = tokens.token[k++];
     for (; k + 1 < count; k += 2) {
@@ -640,6 +639,13 @@ BoundLine Reader::bound_line(std::string_view line, const FreeTokens& tokens) {
            std::to_string(count) + " fields in a " + std::string(out.type.text) + " bound line",
            has_value ? "3 or 4 fields: the bound type, an optional set name, a column name and a value"
                      : "2 or 3 fields: the bound type, an optional set name and a column name");
+    // Likewise a set name and a column without the value the type needs.
+    if (type->needs_value && count == 3 && find_column(tokens.token[1]) < 0 &&
+        find_column(tokens.token[2]) >= 0)
+      fail(tokens.token[2].column,
+           "bound " + std::string(out.type.text) + " on column " + quoted(tokens.token[2].text) +
+               " without a value",
+           "a value after the column name");
     int k = 1;
     if (count == base + 1) out.set = tokens.token[k++];
     out.column = tokens.token[k++];
@@ -653,7 +659,7 @@ BoundLine Reader::bound_line(std::string_view line, const FreeTokens& tokens) {
   out.value = f.field[3];
   if (!out.column.present()) fail(15, "no column name in columns 15-22", "the column the bound applies to");
   if (type->needs_value && !out.value.present())
-    fail(out.column.column, "a " + std::string(out.type.text) + " bound without a value",
+    fail(out.column.column, "bound " + std::string(out.type.text) + " without a value",
          "a value in columns 25-36");
   require_blank(f.field[4], "nothing after the value in a BOUNDS line");
   require_blank(f.field[5], "nothing after the value in a BOUNDS line");

@@ -1,0 +1,2 @@
+* invented file with one defect: nothing but comments
+* no sections at all

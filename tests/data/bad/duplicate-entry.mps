@@ -1,0 +1,16 @@
+* invented model with one defect: column X2 has two entries in row LIM1
+NAME          INVENTED
+ROWS
+ N  COST
+ L  LIM1
+ G  LIM2
+COLUMNS
+    X1        COST         1.0   LIM1         1.0
+    X1        LIM2         1.0
+    X2        COST         2.0   LIM1         1.0
+    X2        LIM1         3.0
+RHS
+    RHS       LIM1         4.0   LIM2         1.0
+BOUNDS
+ UP BND       X1           4.0
+ENDATA
