@@ -66,6 +66,12 @@ FreeTokens split_free(std::string_view line) {
   return out;
 }
 
+// Where a "wrong number of fields" error points: the first field beyond `most`, else the line's start.
+long surplus_column(const FreeTokens& tokens, int most) {
+  return tokens.count > most && most < FreeTokens::max_tokens ? tokens.token[most].column
+                                                              : tokens.token[0].column;
+}
+
 // The six fixed fields, trimmed; empty when blank.
 struct FixedFields {
   std::array<Token, 6> field;
@@ -361,7 +367,7 @@ void Reader::read_rows_line(std::string_view line, const FreeTokens& tokens) {
   Token type, name;
   if (layout_ == Layout::free) {
     if (tokens.count != 2)
-      fail(tokens.token[0].column, std::to_string(tokens.count) + " fields in a ROWS line",
+      fail(surplus_column(tokens, 2), std::to_string(tokens.count) + " fields in a ROWS line",
            "2 fields: a row type (N, L, G or E) and a row name");
     type = tokens.token[0];
     name = tokens.token[1];
@@ -415,8 +421,8 @@ PairLine Reader::pair_line(std::string_view line, const FreeTokens& tokens, bool
                                  ? "3 or 5 fields: a column name, then one or two (row name, value) pairs"
                                  : "2 to 5 fields: an optional set name, then one or two (row name, value) "
                                    "pairs";
-      fail(tokens.token[0].column, std::to_string(count) + " fields in a " + std::string(section) + " line",
-           expected);
+      fail(surplus_column(tokens, 5),
+           std::to_string(count) + " fields in a " + std::string(section) + " line", expected);
     }
     // A set name and a row without a value reads as (row, value) with an unknown row: name the slip.
     if (count == 2 && !head_required && find_row(tokens.token[0]) == unknown_row &&
@@ -635,7 +641,7 @@ BoundLine Reader::bound_line(std::string_view line, const FreeTokens& tokens) {
                      (type->code == "BV" && (count == 4 || (count == 3 && find_column(tokens.token[2]) < 0)));
     int base = has_value ? 3 : 2;  // fields without a set name
     if (count != base && count != base + 1)
-      fail(tokens.token[0].column,
+      fail(surplus_column(tokens, base + 1),
            std::to_string(count) + " fields in a " + std::string(out.type.text) + " bound line",
            has_value ? "3 or 4 fields: the bound type, an optional set name, a column name and a value"
                      : "2 or 3 fields: the bound type, an optional set name and a column name");

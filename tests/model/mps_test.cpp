@@ -403,6 +403,29 @@ TEST(MpsRead, LayoutLabel) {
   EXPECT_TRUE(fixed.same_content(free));
 }
 
+// Detection rule (docs/mps.md): when free reading fails and fixed reading gets further, the error
+// is the fixed reading's, so a fixed file with blank-containing names hears about its real defect.
+TEST(MpsRead, FixedFormErrorsComeFromTheFixedReading) {
+  std::string text = "NAME          SPACED\nROWS\n" + fixed_line({"N", "OB 1"}) + fixed_line({"L", "CAP 1"}) +
+                     "COLUMNS\n" + fixed_line({"", "X 1", "OB 1", "1.", "CAP 9", "1."}) + "ENDATA\n";
+  try {
+    read_text(text);
+    FAIL() << "expected an InputError";
+  } catch (const InputError& e) {
+    EXPECT_EQ(e.where().line, 6);
+    EXPECT_EQ(e.where().column, 40);
+    EXPECT_NE(std::string(e.what()).find("unknown row \"CAP 9\""), std::string::npos) << e.what();
+  }
+  // A file that fits no fixed grid keeps its free-form diagnosis.
+  try {
+    read_text("NAME\nROWS\n N obj extra\nENDATA\n");
+    FAIL() << "expected an InputError";
+  } catch (const InputError& e) {
+    EXPECT_EQ(e.where().line, 3);
+    EXPECT_NE(std::string(e.what()).find("3 fields in a ROWS line"), std::string::npos) << e.what();
+  }
+}
+
 // A column's entries must be contiguous, and a row and column pair appears once (common practice).
 TEST(MpsRead, DuplicateEntryNamesBothLines) {
   try {
