@@ -88,7 +88,7 @@ class Reader {
 
   void finish_statement() {
     if (tokens_.empty()) return;
-    tokens_.push_back(Token{TokenKind::end, "", 0, statement_end_});
+    tokens_.push_back(Token{TokenKind::end, "", std::nullopt, statement_end_});
     next_ = 0;
     ++statements_;
     const Token& keyword = take();
@@ -446,7 +446,7 @@ class Reader {
 
   // number | ( [+|-] product { (+|-) product } )
   Rational factor(int depth) {
-    if (peek().kind == TokenKind::number) return take().value;
+    if (peek().kind == TokenKind::number) return *take().value;
     if (!at_symbol("(")) fail(peek(), "a number or '('");
     const Token& open = take();
     if (depth >= max_parenthesis_depth)

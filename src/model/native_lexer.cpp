@@ -52,7 +52,7 @@ class LineLexer {
     return {start_.file, start_.line, start_.column + static_cast<long>(position)};
   }
 
-  void push(TokenKind kind, std::string text, std::size_t begin, numeric::Rational value = 0) {
+  void push(TokenKind kind, std::string text, std::size_t begin, std::optional<numeric::Rational> value = {}) {
     tokens_.push_back(Token{kind, std::move(text), std::move(value), at(begin)});
   }
 
@@ -96,7 +96,7 @@ class LineLexer {
     numeric::ParseFailure why;
     auto value = numeric::parse_number(literal, &why);
     if (!value) throw InputError(at(begin), "the number " + quoted_for_message(literal), why.reason);
-    push(TokenKind::number, std::string(literal), begin, std::move(*value));
+    push(TokenKind::number, std::string(literal), begin, std::move(value));
   }
 
   // Text up to `close`; backslash escapes \\ \n \t and the closing character.

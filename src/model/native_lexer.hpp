@@ -4,6 +4,7 @@
 #include "plumb/model/error.hpp"
 #include "plumb/numeric/rational.hpp"
 
+#include <optional>
 #include <string>
 #include <string_view>
 #include <vector>
@@ -23,7 +24,7 @@ enum class TokenKind {
 struct Token {
   TokenKind kind;
   std::string text;        // word, name, statement or unit with escapes resolved; symbol spelled out
-  numeric::Rational value; // for numbers
+  std::optional<numeric::Rational> value;  // numbers only
   Location where;
 };
 

@@ -1,6 +1,7 @@
 // The native model format (docs/model-format.md): every construct, its errors and round trips.
 #include "model/expect_input_error.hpp"
 #include "model/parsers.hpp"
+#include "plumb/model/labels.hpp"
 #include "plumb/model/read.hpp"
 
 #include <gtest/gtest.h>
@@ -452,6 +453,24 @@ TEST(NativeCorpus, TightBlendIsInfeasibleByAHandDerivedCombination) {
   EXPECT_EQ(least, -62200);
   EXPECT_EQ(limit, -67800);
   EXPECT_GT(least, limit);
+}
+
+}  // namespace
+
+namespace {
+
+// MPS with its sidecar -> native -> MPS with a written sidecar: the same labelled model.
+TEST(NativeRoundTrip, CorpusMpsThroughNativeAndBack) {
+  Model mps = plumb::model::read_model(std::string(PLUMB_CORPUS_DIR) + "/summer-blend.mps");
+  ASSERT_FALSE(mps.source.labels_path.empty());
+  Model native = round_trip(mps);
+  EXPECT_TRUE(native.same_content(mps));
+  std::ostringstream text, labels;
+  plumb::model::write_mps(native, text);
+  plumb::model::write_labels(native, labels);
+  Model again = plumb::model::read_model_text(text.str(), "again.mps");
+  plumb::model::apply_labels_text(again, labels.str(), "again.labels.csv");
+  EXPECT_TRUE(again.same_content(mps));
 }
 
 }  // namespace
