@@ -474,3 +474,31 @@ TEST(NativeRoundTrip, CorpusMpsThroughNativeAndBack) {
 }
 
 }  // namespace
+
+namespace {
+
+// Single-character damage anywhere in a real model: each result reads or gives one InputError,
+// never another exception, a crash or a hang (common practice for hand-rolled parsers).
+TEST(NativeFormatErrors, DamagedCorpusFileNeverCrashes) {
+  std::ifstream in(std::string(PLUMB_CORPUS_DIR) + "/summer-blend.plumb", std::ios::binary);
+  std::string text((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+  ASSERT_GT(text.size(), 1000u);
+  int refused = 0;
+  // Every third character of the statements (comments are skipped), to keep the run short.
+  for (std::size_t i = text.find("\ntitle"); i < text.size(); i += 3) {
+    if (text[i] == '#') i = text.find('\n', i);
+    if (i == std::string::npos) break;
+    for (char damage : {'"', '[', ':', '-', '(', '\n', '7'}) {
+      std::string damaged = text;
+      damaged[i] = damage;
+      try {
+        parse(damaged);
+      } catch (const InputError&) {
+        ++refused;
+      }
+    }
+  }
+  EXPECT_GT(refused, 0);
+}
+
+}  // namespace
