@@ -28,7 +28,14 @@ bool has_part(const Parts& parts, std::string_view name) {
   return name == "objective" ? parts.objective : name == "x" ? parts.x : name == "y" ? parts.y : parts.ray;
 }
 
-std::string quoted(const std::string& text) { return nlohmann::json(text).dump(); }
+std::string quoted(const std::string& text) {
+  try {
+    return nlohmann::json(text).dump();
+  } catch (const nlohmann::json::type_error&) {
+    throw std::invalid_argument("certificate text " + nlohmann::json(text).dump(-1, ' ', false, nlohmann::json::error_handler_t::replace) +
+                                " is not valid UTF-8, which JSON cannot carry exactly");
+  }
+}
 std::string quoted(const Rational& value) { return "\"" + numeric::to_fraction(value) + "\""; }
 
 void write_values(std::string& out, const char* key, const NamedValues& values) {

@@ -81,6 +81,12 @@ TEST(CertificateWriter, RefusesPartsTheStatusDoesNotHave) {
   EXPECT_THROW(to_json_text(c), std::invalid_argument);
 }
 
+TEST(CertificateWriter, RefusesNamesThatAreNotUtf8) {
+  Certificate c = sample();
+  c.x[0].first = "caf\xe9";  // Latin-1, as an MPS file may hold
+  EXPECT_THROW(to_json_text(c), std::invalid_argument);
+}
+
 TEST(CertificateReader, CanonicalRoundTrip) {
   Certificate c = parse_certificate(sample_text, "c.json");
   EXPECT_EQ(to_json_text(c), sample_text);
@@ -154,6 +160,7 @@ TEST(CertificateReader, RefusesDuplicateKeysWithTheirLine) {
   expect_refused(text, "c.json:5:4: found the key \"c\" a second time in one object");
   expect_refused(R"({"plumb_certificate": 1, "plumb_certificate": 1})", "c.json:1:26: found the key \"plumb_certificate\" a second time");
   expect_refused(R"({"plumb_certificate": 1, "status": "feasible", "status": "optimal"})", "a second time");
+  expect_refused(with_value(R"("1", "\u0063": "2")"), "found the key \"c\" a second time");  // same name once decoded
 }
 
 TEST(CertificateReader, RefusesDeepNestingWithoutRecursion) {
