@@ -48,26 +48,28 @@ struct Refusal {
   std::string expected;
 };
 
+// Builds the document itself rather than through nlohmann's DOM builder: an ordered object's own
+// insert searches its keys, which would make a million-entry "x" quadratic; here duplicates are
+// already excluded, so members are appended directly.
 class StrictHandler {
  public:
-  StrictHandler(Json& root, std::string_view text, const std::size_t& consumed, int max_depth,
+  // root == nullptr: only look for `target`, build nothing.
+  StrictHandler(Json* root, std::string_view text, const std::size_t& consumed, int max_depth,
                 const std::string* target)
-      : dom_(root, false), text_(text), consumed_(consumed), max_depth_(max_depth), target_(target) {}
+      : root_(root), text_(text), consumed_(consumed), max_depth_(max_depth), target_(target) {}
 
-  bool null() { return begin_value() && finish(dom_.null()); }
-  bool boolean(bool value) { return begin_value() && finish(dom_.boolean(value)); }
-  bool number_integer(Json::number_integer_t value) { return begin_value() && finish(dom_.number_integer(value)); }
-  bool number_unsigned(Json::number_unsigned_t value) { return begin_value() && finish(dom_.number_unsigned(value)); }
-  bool number_float(Json::number_float_t value, const std::string& text) {
-    return begin_value() && finish(dom_.number_float(value, text));
-  }
-  bool string(std::string& value) { return begin_value() && finish(dom_.string(value)); }
-  bool binary(Json::binary_t& value) { return begin_value() && finish(dom_.binary(value)); }
+  bool null() { return leaf(nullptr); }
+  bool boolean(bool value) { return leaf(value); }
+  bool number_integer(Json::number_integer_t value) { return leaf(value); }
+  bool number_unsigned(Json::number_unsigned_t value) { return leaf(value); }
+  bool number_float(Json::number_float_t value, const std::string&) { return leaf(value); }
+  bool string(std::string& value) { return leaf(std::move(value)); }
+  bool binary(Json::binary_t& value) { return leaf(Json::binary(std::move(value))); }
 
-  bool start_object(std::size_t elements) { return begin_value() && open(true) && finish(dom_.start_object(elements)); }
-  bool start_array(std::size_t elements) { return begin_value() && open(false) && finish(dom_.start_array(elements)); }
-  bool end_object() { return close() && finish(dom_.end_object()); }
-  bool end_array() { return close() && finish(dom_.end_array()); }
+  bool start_object(std::size_t) { return open(true, Json::object()); }
+  bool start_array(std::size_t) { return open(false, Json::array()); }
+  bool end_object() { return close(); }
+  bool end_array() { return close(); }
 
   bool key(std::string& name) {
     Frame& frame = frames_.back();
@@ -78,7 +80,7 @@ class StrictHandler {
       return false;
     }
     frame.key = name;
-    return finish(dom_.key(name));
+    return finish();
   }
 
   bool parse_error(std::size_t position, const std::string&, const nlohmann::detail::exception& error) {
@@ -99,6 +101,7 @@ class StrictHandler {
  private:
   struct Frame {
     bool is_object;
+    Json* node;            // the object or array being filled; null when building nothing
     std::string key;       // object: the key whose value comes next
     long index = -1;       // array: the index of the current element
     std::unordered_set<std::string> keys;
@@ -120,33 +123,55 @@ class StrictHandler {
     return pointer;
   }
 
-  bool begin_value() {
+  void begin_value() {
     if (!frames_.empty() && !frames_.back().is_object) ++frames_.back().index;
     if (target_ && !target_index_ && current_pointer() == *target_) target_index_ = value_start();
-    return true;
   }
 
-  bool open(bool is_object) {
+  // Puts a value where the parser is: the root, the next array element, or the pending member.
+  Json* place(Json value) {
+    if (!root_) return nullptr;
+    if (frames_.empty()) return &(*root_ = std::move(value));
+    Frame& frame = frames_.back();
+    if (!frame.is_object) {
+      auto& elements = frame.node->get_ref<Json::array_t&>();
+      elements.push_back(std::move(value));
+      return &elements.back();
+    }
+    auto& members = static_cast<Json::object_t::Container&>(frame.node->get_ref<Json::object_t&>());
+    members.emplace_back(frame.key, std::move(value));
+    return &members.back().second;
+  }
+
+  bool leaf(Json value) {
+    begin_value();
+    place(std::move(value));
+    return finish();
+  }
+
+  bool open(bool is_object, Json empty) {
+    begin_value();
     if (static_cast<int>(frames_.size()) >= max_depth_) {
       refusal_ = Refusal{value_start(), "objects and arrays nested deeper than " + std::to_string(max_depth_) + " levels",
                          "at most " + std::to_string(max_depth_) + " levels of nesting"};
       return false;
     }
-    frames_.push_back(Frame{is_object, {}, -1, {}});
-    return true;
+    Json* node = place(std::move(empty));
+    frames_.push_back(Frame{is_object, node, {}, -1, {}});
+    return finish();
   }
 
   bool close() {
     frames_.pop_back();
+    return finish();
+  }
+
+  bool finish() {
+    previous_end_ = consumed_;
     return true;
   }
 
-  bool finish(bool accepted) {
-    previous_end_ = consumed_;
-    return accepted;
-  }
-
-  nlohmann::detail::json_sax_dom_parser<Json> dom_;
+  Json* root_;
   std::string_view text_;
   const std::size_t& consumed_;
   int max_depth_;
@@ -168,7 +193,7 @@ std::string pointer_step(const std::string& key) {
 Json parse_strict_json(std::string_view text, const std::string& file, int max_depth) {
   Json root;
   std::size_t consumed = 0;
-  StrictHandler handler(root, text, consumed, max_depth, nullptr);
+  StrictHandler handler(&root, text, consumed, max_depth, nullptr);
   CountingIterator first{text.data(), &consumed}, last{text.data() + text.size(), &consumed};
   if (!Json::sax_parse(first, last, &handler)) {
     const Refusal refusal = handler.refusal().value_or(Refusal{consumed, "invalid JSON", "a JSON document"});
@@ -178,9 +203,8 @@ Json parse_strict_json(std::string_view text, const std::string& file, int max_d
 }
 
 model::Location locate(std::string_view text, const std::string& file, const std::string& pointer) {
-  Json ignored;
   std::size_t consumed = 0;
-  StrictHandler handler(ignored, text, consumed, std::numeric_limits<int>::max(), &pointer);
+  StrictHandler handler(nullptr, text, consumed, std::numeric_limits<int>::max(), &pointer);
   CountingIterator first{text.data(), &consumed}, last{text.data() + text.size(), &consumed};
   Json::sax_parse(first, last, &handler);
   return location_of(text, file, handler.target_index().value_or(0));
