@@ -31,6 +31,10 @@ struct FloatResult {
   long iterations = 0;
   double objective = 0;  // in the model's own sense, constant included
   std::string note;      // why it failed or stopped, for diagnostics
+  // infeasible: the basic variable whose row of B^-1 gives the dual ray; unbounded: the entering
+  // variable along whose edge the objective falls without end; else -1.  Variables are numbered
+  // columns first, then row logicals (column_count() + row).  A hint, never trusted.
+  int ray_variable = -1;
 };
 
 // Works on the model's own form: columns with bounds, one logical per row bounded by its sides.

@@ -1,0 +1,578 @@
+#include "engine.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+namespace plumb::simplex::detail {
+
+Engine::Engine(const LpData& lp, const FloatOptions& options)
+    : lp_(lp),
+      options_(options),
+      m_(lp.rows),
+      n_(lp.columns),
+      inf_(std::numeric_limits<double>::infinity()),
+      cost_(lp.cost),
+      lower_(lp.lower),
+      upper_(lp.upper) {
+  const int total = m_ + n_;
+  x_.assign(total, 0);
+  d_.assign(total, 0);
+  position_.assign(total, -1);
+  status_.assign(total, VarStatus::at_lower);
+  head_.resize(m_);
+  weight_.assign(m_, 1);
+  rho_.assign(m_, 0);
+  column_.assign(m_, 0);
+  tau_.assign(m_, 0);
+  work_.assign(m_, 0);
+  alpha_row_.assign(total, 0);
+  in_row_.assign(total, 0);
+  iteration_limit_ = 20L * total + 20000;
+  std::vector<VarStatus> slack(total, VarStatus::basic);
+  for (int j = 0; j < n_; ++j) slack[j] = default_status(j);
+  start_from(slack);
+}
+
+VarStatus Engine::default_status(int j) const {
+  if (lower_[j] > -inf_) return VarStatus::at_lower;
+  if (upper_[j] < inf_) return VarStatus::at_upper;
+  return VarStatus::at_zero;
+}
+
+// The bound a nonbasic variable should rest at so its reduced cost is dual feasible, if any.
+VarStatus Engine::status_for_reduced_cost(int j) const {
+  if (fixed(j)) return VarStatus::at_lower;
+  if (d_[j] > dual_tolerance && lower_[j] > -inf_) return VarStatus::at_lower;
+  if (d_[j] < -dual_tolerance && upper_[j] < inf_) return VarStatus::at_upper;
+  if (std::abs(d_[j]) <= dual_tolerance && status_[j] != VarStatus::basic) {
+    VarStatus s = status_[j];
+    if (s == VarStatus::at_lower && lower_[j] > -inf_) return s;
+    if (s == VarStatus::at_upper && upper_[j] < inf_) return s;
+  }
+  return default_status(j);
+}
+
+double Engine::nonbasic_value(int j) const {
+  switch (status_[j]) {
+    case VarStatus::at_lower: return lower_[j];
+    case VarStatus::at_upper: return upper_[j];
+    default: return 0;
+  }
+}
+
+void Engine::set_nonbasic(int j, VarStatus s) {
+  if (s == VarStatus::at_lower && lower_[j] == -inf_) s = default_status(j);
+  if (s == VarStatus::at_upper && upper_[j] == inf_) s = default_status(j);
+  if (s == VarStatus::at_zero && (lower_[j] > -inf_ || upper_[j] < inf_)) s = default_status(j);
+  status_[j] = s;
+  position_[j] = -1;
+  x_[j] = nonbasic_value(j);
+}
+
+template <class F>
+void Engine::for_column(int j, F&& f) const {
+  if (j < n_) {
+    for (int p = lp_.by_column.start[j]; p < lp_.by_column.start[j + 1]; ++p) f(lp_.by_column.index[p], lp_.by_column.value[p]);
+  } else {
+    f(j - n_, -1.0);
+  }
+}
+
+void Engine::start_from(const std::vector<VarStatus>& statuses) {
+  const int total = m_ + n_;
+  int basic = 0;
+  for (int j = 0; j < total; ++j) basic += statuses[j] == VarStatus::basic;
+  std::vector<VarStatus> use = statuses;
+  if (basic != m_) {
+    for (int j = 0; j < n_; ++j) use[j] = default_status(j);
+    for (int i = 0; i < m_; ++i) use[n_ + i] = VarStatus::basic;
+  }
+  int k = 0;
+  for (int j = 0; j < total; ++j) {
+    if (use[j] == VarStatus::basic) {
+      status_[j] = VarStatus::basic;
+      head_[k] = j;
+      position_[j] = k++;
+    } else {
+      set_nonbasic(j, use[j]);
+    }
+  }
+  std::fill(weight_.begin(), weight_.end(), 1.0);
+}
+
+void Engine::refactor() {
+  repaired_ = false;
+  for (int attempt = 0; attempt < 4; ++attempt) {
+    SparseVectors columns;
+    for (int k = 0; k < m_; ++k) {
+      for_column(head_[k], [&](int i, double v) { columns.push(i, v); });
+      columns.close();
+    }
+    auto singular = factor_.factorize(m_, columns);
+    if (singular.empty()) return;
+    for (std::size_t t = 0; t < singular.positions.size(); ++t) {
+      int k = singular.positions[t];
+      int leaving = head_[k];
+      int entering = n_ + singular.rows[t];
+      set_nonbasic(leaving, status_for_reduced_cost(leaving));
+      head_[k] = entering;
+      position_[entering] = k;
+      status_[entering] = VarStatus::basic;
+      weight_[k] = 1;
+    }
+    repaired_ = true;
+  }
+  throw NumericalTrouble{"the basis stays singular after logicals were put in"};
+}
+
+void Engine::compute_primal() {
+  std::fill(work_.begin(), work_.end(), 0.0);
+  for (int j = 0; j < m_ + n_; ++j) {
+    if (status_[j] == VarStatus::basic || x_[j] == 0) continue;
+    double xj = x_[j];
+    for_column(j, [&](int i, double v) { work_[i] -= v * xj; });
+  }
+  factor_.ftran(work_);
+  for (int k = 0; k < m_; ++k) x_[head_[k]] = work_[k];
+}
+
+void Engine::compute_dual() {
+  for (int k = 0; k < m_; ++k) work_[k] = cost_[head_[k]];
+  factor_.btran(work_);  // now y, by row
+  for (int j = 0; j < n_; ++j) {
+    if (status_[j] == VarStatus::basic) {
+      d_[j] = 0;
+      continue;
+    }
+    double s = cost_[j];
+    for (int p = lp_.by_column.start[j]; p < lp_.by_column.start[j + 1]; ++p) s -= lp_.by_column.value[p] * work_[lp_.by_column.index[p]];
+    d_[j] = s;
+  }
+  for (int i = 0; i < m_; ++i) d_[n_ + i] = status_[n_ + i] == VarStatus::basic ? 0 : work_[i];
+}
+
+void Engine::compute_pivot_row() {
+  int nonzeros = 0;
+  for (int i = 0; i < m_; ++i) nonzeros += rho_[i] != 0;
+  auto touch = [&](int j, double v) {
+    if (!in_row_[j]) {
+      in_row_[j] = 1;
+      row_touched_.push_back(j);
+    }
+    alpha_row_[j] += v;
+  };
+  if (nonzeros < 0.2 * m_) {
+    for (int i = 0; i < m_; ++i) {
+      double r = rho_[i];
+      if (r == 0) continue;
+      for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1]; ++p) {
+        int j = lp_.by_row.index[p];
+        if (position_[j] < 0) touch(j, r * lp_.by_row.value[p]);
+      }
+    }
+  } else {
+    for (int j = 0; j < n_; ++j) {
+      if (position_[j] >= 0) continue;
+      double s = 0;
+      for (int p = lp_.by_column.start[j]; p < lp_.by_column.start[j + 1]; ++p) s += lp_.by_column.value[p] * rho_[lp_.by_column.index[p]];
+      if (s != 0) touch(j, s);
+    }
+  }
+  for (int i = 0; i < m_; ++i)
+    if (rho_[i] != 0 && position_[n_ + i] < 0) touch(n_ + i, -rho_[i]);
+}
+
+void Engine::clear_pivot_row() {
+  for (int j : row_touched_) {
+    alpha_row_[j] = 0;
+    in_row_[j] = 0;
+  }
+  row_touched_.clear();
+}
+
+double Engine::primal_infeasibility(int j) const {
+  if (x_[j] < lower_[j] - primal_tolerance) return lower_[j] - x_[j];
+  if (x_[j] > upper_[j] + primal_tolerance) return x_[j] - upper_[j];
+  return 0;
+}
+
+int Engine::count_primal_infeasible() const {
+  int count = 0;
+  for (int k = 0; k < m_; ++k) count += primal_infeasibility(head_[k]) > 0;
+  return count;
+}
+
+int Engine::count_dual_infeasible(bool boxed_too) const {
+  int count = 0;
+  for (int j = 0; j < m_ + n_; ++j) {
+    if (status_[j] == VarStatus::basic || fixed(j)) continue;
+    if (!boxed_too && boxed(j)) continue;
+    bool bad = false;
+    switch (status_[j]) {
+      case VarStatus::at_lower: bad = d_[j] < -dual_tolerance; break;
+      case VarStatus::at_upper: bad = d_[j] > dual_tolerance; break;
+      default: bad = std::abs(d_[j]) > dual_tolerance; break;
+    }
+    count += bad;
+  }
+  return count;
+}
+
+double Engine::objective() const {
+  double v = 0;
+  for (int j = 0; j < n_; ++j) v += lp_.cost[j] * x_[j];
+  return v;
+}
+
+bool Engine::polls_say_stop(const char* phase) {
+  if (options_.budget && options_.budget->exhausted()) return true;
+  if (options_.progress) {
+    auto now = std::chrono::steady_clock::now();
+    if (iterations_ - last_report_iteration_ >= 100 || now - last_report_ >= std::chrono::milliseconds(250)) {
+      last_report_ = now;
+      last_report_iteration_ = iterations_;
+      double infeasibility = 0;
+      for (int k = 0; k < m_; ++k) infeasibility += primal_infeasibility(head_[k]);
+      options_.progress(FloatProgress{phase, iterations_, lp_.model_objective(objective()), infeasibility});
+    }
+  }
+  return false;
+}
+
+// Basis change: the variable at position r leaves (its status and value already set by the
+// caller), `entering` takes its place; column_ holds B^-1 a_entering.
+void Engine::pivot(int r, int entering, double primal_step) {
+  for (int k = 0; k < m_; ++k)
+    if (column_[k] != 0) x_[head_[k]] -= primal_step * column_[k];
+  int leaving = head_[r];
+  double entering_value = x_[entering] + primal_step;
+  position_[leaving] = -1;
+  head_[r] = entering;
+  position_[entering] = r;
+  status_[entering] = VarStatus::basic;
+  x_[entering] = entering_value;
+  d_[entering] = 0;
+  factor_.update(r, column_);
+  ++iterations_;
+}
+
+Engine::LoopEnd Engine::dual_loop(const char* phase) {
+  bool fresh = false;
+  while (true) {
+    if (iterations_ >= iteration_limit_) return LoopEnd::limit;
+    if (polls_say_stop(phase)) return LoopEnd::stopped;
+    if (factor_.update_count() >= refactor_interval) {
+      refactor();
+      compute_primal();
+      compute_dual();
+      if (repaired_) return LoopEnd::restart;
+      fresh = true;
+    }
+    // Pricing: dual steepest edge (Forrest & Goldfarb, "Steepest-edge simplex algorithms for
+    // linear programming", Math. Programming 57, 1992): largest infeasibility^2 / weight.
+    int r = -1;
+    double best = 0;
+    for (int k = 0; k < m_; ++k) {
+      double infeasibility = primal_infeasibility(head_[k]);
+      if (infeasibility <= 0) continue;
+      double score = infeasibility * infeasibility / weight_[k];
+      if (score > best) best = score, r = k;
+    }
+    if (r < 0) return LoopEnd::optimal;
+
+    const int leaving = head_[r];
+    const bool to_lower = x_[leaving] < lower_[leaving];
+    const double delta = to_lower ? x_[leaving] - lower_[leaving] : x_[leaving] - upper_[leaving];
+    std::fill(rho_.begin(), rho_.end(), 0.0);
+    rho_[r] = 1;
+    factor_.btran(rho_);
+    compute_pivot_row();
+
+    // Breakpoints: reduced costs d_j - t * sign * alpha_j, sign = -1 when leaving to the lower bound.
+    candidates_.clear();
+    const double sign = to_lower ? -1 : 1;
+    for (int j : row_touched_) {
+      if (fixed(j)) continue;
+      double a = sign * alpha_row_[j];
+      if (std::abs(a) <= pivot_tolerance) continue;
+      double range = boxed(j) ? upper_[j] - lower_[j] : inf_;
+      switch (status_[j]) {
+        case VarStatus::at_lower:
+          if (a > 0) candidates_.push_back({j, d_[j], a, range});
+          break;
+        case VarStatus::at_upper:
+          if (a < 0) candidates_.push_back({j, -d_[j], -a, range});
+          break;
+        default:
+          candidates_.push_back({j, a > 0 ? d_[j] : -d_[j], std::abs(a), inf_});
+          break;
+      }
+    }
+    DualStep step = dual_ratio_test(candidates_, std::abs(delta), dual_tolerance);
+    if (step.entering < 0) {
+      clear_pivot_row();
+      if (!fresh && factor_.update_count() > 0) {
+        refactor();
+        compute_primal();
+        compute_dual();
+        if (repaired_) return LoopEnd::restart;
+        fresh = true;
+        continue;
+      }
+      ray_variable_ = leaving;
+      return LoopEnd::infeasible;
+    }
+    const int q = step.entering;
+    std::fill(column_.begin(), column_.end(), 0.0);
+    for_column(q, [&](int i, double v) { column_[i] = v; });
+    factor_.ftran(column_);
+    const double alpha = column_[r];
+    if (std::abs(alpha - alpha_row_[q]) > 1e-7 * (1 + std::abs(alpha)) || std::abs(alpha) < 1e-11) {
+      clear_pivot_row();
+      if (++trouble_ > 200) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
+      if (factor_.update_count() > 0) {
+        refactor();
+        compute_primal();
+        compute_dual();
+        if (repaired_) return LoopEnd::restart;
+        fresh = true;
+        continue;
+      }
+    }
+    fresh = false;
+
+    // Dual step; a breakpoint taken slightly beyond zero (Harris) is absorbed by shifting the
+    // entering cost so its reduced cost is exactly zero (Koberstein 2005, section 6.2.2).
+    double theta_dual = d_[q] / alpha;
+    if ((to_lower && theta_dual > 0) || (!to_lower && theta_dual < 0)) {
+      cost_[q] -= d_[q];
+      costs_modified_ = true;
+      theta_dual = 0;
+    }
+    if (theta_dual != 0)
+      for (int j : row_touched_) d_[j] -= theta_dual * alpha_row_[j];
+    d_[leaving] = -theta_dual;
+
+    // Bound flips of the passed breakpoints.
+    if (!step.flips.empty()) {
+      std::fill(work_.begin(), work_.end(), 0.0);
+      for (int j : step.flips) {
+        VarStatus other = status_[j] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower;
+        double change = (other == VarStatus::at_upper ? upper_[j] : lower_[j]) - x_[j];
+        set_nonbasic(j, other);
+        for_column(j, [&](int i, double v) { work_[i] += v * change; });
+      }
+      factor_.ftran(work_);
+      for (int k = 0; k < m_; ++k) x_[head_[k]] -= work_[k];
+    }
+    clear_pivot_row();
+
+    // Dual steepest-edge weights (Forrest & Goldfarb 1992, update (30)), tau = B^-1 rho.
+    double rho_norm = 0;
+    for (int i = 0; i < m_; ++i) rho_norm += rho_[i] * rho_[i];
+    tau_ = rho_;
+    factor_.ftran(tau_);
+    for (int k = 0; k < m_; ++k) {
+      if (k == r || column_[k] == 0) continue;
+      double kappa = column_[k] / alpha;
+      weight_[k] = std::max(weight_[k] + kappa * (kappa * rho_norm - 2 * tau_[k]), 1e-4);
+    }
+    weight_[r] = std::max(rho_norm / (alpha * alpha), 1e-4);
+
+    const double bound = to_lower ? lower_[leaving] : upper_[leaving];
+    const double primal_step = (x_[leaving] - bound) / alpha;
+    status_[leaving] = to_lower ? VarStatus::at_lower : VarStatus::at_upper;
+    pivot(r, q, primal_step);
+    x_[leaving] = bound;
+  }
+}
+
+Engine::LoopEnd Engine::primal_loop() {
+  while (true) {
+    if (iterations_ >= iteration_limit_) return LoopEnd::limit;
+    if (polls_say_stop("primal clean-up")) return LoopEnd::stopped;
+    if (factor_.update_count() >= refactor_interval) {
+      refactor();
+      compute_primal();
+      compute_dual();
+      if (repaired_ || count_primal_infeasible() > 0) return LoopEnd::restart;
+    }
+    // Pricing: the largest dual infeasibility (Dantzig's rule on the scaled problem).
+    int q = -1;
+    double best = dual_tolerance;
+    for (int j = 0; j < m_ + n_; ++j) {
+      if (status_[j] == VarStatus::basic || fixed(j)) continue;
+      double infeasibility = 0;
+      switch (status_[j]) {
+        case VarStatus::at_lower: infeasibility = -d_[j]; break;
+        case VarStatus::at_upper: infeasibility = d_[j]; break;
+        default: infeasibility = std::abs(d_[j]); break;
+      }
+      if (infeasibility > best) best = infeasibility, q = j;
+    }
+    if (q < 0) return LoopEnd::optimal;
+    const double direction = d_[q] < 0 ? 1 : -1;
+    std::fill(column_.begin(), column_.end(), 0.0);
+    for_column(q, [&](int i, double v) { column_[i] = v; });
+    factor_.ftran(column_);
+    primal_candidates_.clear();
+    for (int k = 0; k < m_; ++k) {
+      double rate = -direction * column_[k];  // change of the basic variable per unit step
+      if (std::abs(rate) <= pivot_tolerance) continue;
+      int v = head_[k];
+      if (rate < 0 && lower_[v] > -inf_) primal_candidates_.push_back({k, x_[v] - lower_[v], -rate});
+      if (rate > 0 && upper_[v] < inf_) primal_candidates_.push_back({k, upper_[v] - x_[v], rate});
+    }
+    PrimalStep step = primal_ratio_test(primal_candidates_, primal_tolerance);
+    const double range = boxed(q) ? upper_[q] - lower_[q] : inf_;
+    if (step.leaving < 0 && range == inf_) {
+      ray_variable_ = q;  // the entering variable spans the ray
+      return LoopEnd::unbounded;
+    }
+    if (step.leaving < 0 || range <= step.step) {
+      // The entering variable reaches its other bound first: a bound flip, no basis change.
+      VarStatus other = status_[q] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower;
+      set_nonbasic(q, other);
+      for (int k = 0; k < m_; ++k) x_[head_[k]] -= direction * range * column_[k];
+      ++iterations_;
+      continue;
+    }
+    const int r = step.leaving;
+    const int leaving = head_[r];
+    const double alpha = column_[r];
+    std::fill(rho_.begin(), rho_.end(), 0.0);
+    rho_[r] = 1;
+    factor_.btran(rho_);
+    compute_pivot_row();
+    if (std::abs(alpha - alpha_row_[q]) > 1e-7 * (1 + std::abs(alpha))) {
+      clear_pivot_row();
+      if (++trouble_ > 200) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
+      if (factor_.update_count() > 0) {
+        refactor();
+        compute_primal();
+        compute_dual();
+        if (repaired_ || count_primal_infeasible() > 0) return LoopEnd::restart;
+        continue;
+      }
+    }
+    const double theta_dual = d_[q] / alpha;
+    for (int j : row_touched_) d_[j] -= theta_dual * alpha_row_[j];
+    d_[leaving] = -theta_dual;
+    clear_pivot_row();
+    const bool leaves_low = -direction * alpha < 0;
+    const double bound = leaves_low ? lower_[leaving] : upper_[leaving];
+    const double primal_step = direction * std::max(step.step, 0.0);
+    status_[leaving] = leaves_low ? VarStatus::at_lower : VarStatus::at_upper;
+    pivot(r, q, primal_step);
+    x_[leaving] = bound;
+    weight_[r] = 1;
+  }
+}
+
+// Dual phase 1 by the auxiliary problem (Koberstein 2005, section 4.3, after Fourer 1994): the
+// same matrix and costs with every bound replaced by a small box, so that every basis is dual
+// feasible once nonbasics sit at the right end; its optimum is a dual feasible basis of the
+// original problem exactly when its objective is zero.
+Engine::LoopEnd Engine::dual_phase_one() {
+  const int total = m_ + n_;
+  std::vector<double> saved_lower = lower_, saved_upper = upper_;
+  for (int j = 0; j < total; ++j) {
+    bool has_lower = lower_[j] > -inf_, has_upper = upper_[j] < inf_;
+    if (has_lower && has_upper) lower_[j] = upper_[j] = 0;
+    else if (has_lower) lower_[j] = 0, upper_[j] = 1;
+    else if (has_upper) lower_[j] = -1, upper_[j] = 0;
+    else lower_[j] = -1000, upper_[j] = 1000;
+  }
+  for (int j = 0; j < total; ++j)
+    if (status_[j] != VarStatus::basic) set_nonbasic(j, d_[j] >= 0 ? VarStatus::at_lower : VarStatus::at_upper);
+  compute_primal();
+  LoopEnd end = dual_loop("dual phase 1");
+  lower_ = saved_lower;
+  upper_ = saved_upper;
+  for (int j = 0; j < total; ++j)
+    if (status_[j] != VarStatus::basic) set_nonbasic(j, status_for_reduced_cost(j));
+  compute_primal();
+  return end;
+}
+
+void Engine::perturb_costs() {
+  // Random perturbation in the direction that keeps each reduced cost feasible (Koberstein
+  // 2005, section 6.2.2; Maros 2003, section 9.6.2), removed before the answer is given.
+  std::uniform_real_distribution<double> unit(0.0, 1.0);
+  for (int j = 0; j < n_; ++j) {
+    if (fixed(j) || (lower_[j] == -inf_ && upper_[j] == inf_)) continue;
+    double size = 1e-6 * (1 + std::abs(cost_[j])) * (1 + unit(random_));
+    bool down = status_[j] == VarStatus::at_upper || (status_[j] == VarStatus::basic && lower_[j] == -inf_);
+    cost_[j] += down ? -size : size;
+  }
+  costs_modified_ = true;
+}
+
+void Engine::restore_costs() {
+  cost_ = lp_.cost;
+  costs_modified_ = false;
+}
+
+FloatStatus Engine::solve() {
+  try {
+    refactor();
+    compute_primal();
+    compute_dual();
+    bool perturbed_once = false;
+    for (int round = 0; round < 12; ++round) {
+      int primal_bad = count_primal_infeasible();
+      int dual_bad = count_dual_infeasible(true);
+      if (primal_bad == 0 && dual_bad == 0) {
+        if (!costs_modified_) return FloatStatus::optimal;
+        restore_costs();
+        compute_dual();
+        continue;
+      }
+      LoopEnd end;
+      if (primal_bad == 0 && !costs_modified_) {
+        end = primal_loop();
+      } else {
+        for (int j = 0; j < m_ + n_; ++j)
+          if (status_[j] != VarStatus::basic) set_nonbasic(j, status_for_reduced_cost(j));
+        compute_primal();
+        if (count_dual_infeasible(false) > 0) {
+          end = dual_phase_one();
+          if (end == LoopEnd::optimal && count_dual_infeasible(false) > 0) {
+            note_ = "dual infeasible after dual phase 1";
+            return FloatStatus::unbounded;
+          }
+        } else {
+          end = LoopEnd::optimal;
+        }
+        if (end == LoopEnd::optimal) {
+          if (!perturbed_once) {
+            perturb_costs();
+            compute_dual();
+            perturbed_once = true;
+          }
+          end = dual_loop("dual");
+        }
+      }
+      switch (end) {
+        case LoopEnd::optimal:
+        case LoopEnd::restart:
+          refactor();
+          compute_primal();
+          compute_dual();
+          break;
+        case LoopEnd::infeasible: note_ = "dual ray found"; return FloatStatus::infeasible;
+        case LoopEnd::unbounded: note_ = "primal ray found"; return FloatStatus::unbounded;
+        case LoopEnd::stopped: note_ = "budget exhausted"; return FloatStatus::stopped;
+        case LoopEnd::limit: note_ = "iteration limit reached"; return FloatStatus::failed;
+      }
+    }
+    note_ = "no stable optimal basis after repeated clean-up";
+    return FloatStatus::failed;
+  } catch (const NumericalTrouble& trouble) {
+    note_ = trouble.what;
+    return FloatStatus::failed;
+  }
+}
+
+}  // namespace plumb::simplex::detail

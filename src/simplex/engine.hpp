@@ -1,0 +1,104 @@
+// The bounded dual simplex with primal clean-up, working on LpData.
+#pragma once
+
+#include "basis_factor.hpp"
+#include "lp_data.hpp"
+#include "ratio_test.hpp"
+#include "plumb/simplex/float_simplex.hpp"
+
+#include <chrono>
+#include <random>
+#include <string>
+#include <vector>
+
+namespace plumb::simplex::detail {
+
+// Thrown inside the engine when the factors cannot be trusted any more; solve() turns it into
+// FloatStatus::failed.
+struct NumericalTrouble {
+  std::string what;
+};
+
+class Engine {
+ public:
+  Engine(const LpData& lp, const FloatOptions& options);
+
+  // Starts from the given statuses (one per variable, exactly `rows` basic), else from the
+  // all-logical basis.
+  void start_from(const std::vector<VarStatus>& statuses);
+  FloatStatus solve();
+
+  const std::vector<VarStatus>& statuses() const { return status_; }
+  long iterations() const { return iterations_; }
+  double objective() const;  // internal (minimising, scaled) objective of the current point
+  const std::string& note() const { return note_; }
+  int ray_variable() const { return ray_variable_; }
+
+  double primal_tolerance = 1e-7;
+  double dual_tolerance = 1e-7;
+  double pivot_tolerance = 1e-7;
+  int refactor_interval = 100;
+
+ private:
+  enum class LoopEnd { optimal, infeasible, unbounded, stopped, limit, restart };
+
+  bool boxed(int j) const { return lower_[j] > -inf_ && upper_[j] < inf_; }
+  bool fixed(int j) const { return lower_[j] == upper_[j]; }
+  double nonbasic_value(int j) const;
+  void set_nonbasic(int j, VarStatus s);
+  VarStatus default_status(int j) const;
+  VarStatus status_for_reduced_cost(int j) const;
+
+  // Calls f(row, value) for each entry of variable j's column of [A -I].
+  template <class F>
+  void for_column(int j, F&& f) const;
+
+  void refactor();  // may swap logicals in for a singular basis; sets repaired_
+  void compute_primal();
+  void compute_dual();
+  void compute_pivot_row();  // alpha_row_ from rho_, over nonbasic variables
+  void clear_pivot_row();
+  double primal_infeasibility(int j) const;  // > 0 when outside its bounds beyond tolerance
+  int count_primal_infeasible() const;
+  int count_dual_infeasible(bool boxed_too) const;
+  bool polls_say_stop(const char* phase);
+
+  LoopEnd dual_loop(const char* phase);
+  LoopEnd primal_loop();
+  LoopEnd dual_phase_one();
+  void perturb_costs();
+  void restore_costs();
+  void pivot(int r, int entering, double primal_step);  // basis change at position r
+
+  const LpData& lp_;
+  const FloatOptions& options_;
+  const int m_, n_;
+  const double inf_;
+
+  std::vector<double> cost_, lower_, upper_;  // working copies (perturbed, shifted, boxed)
+  bool costs_modified_ = false;
+  std::vector<double> x_, d_;
+  std::vector<int> head_, position_;
+  std::vector<VarStatus> status_;
+  std::vector<double> weight_;  // dual steepest-edge weights per position
+  BasisFactor factor_;
+  bool repaired_ = false;
+
+  std::vector<double> rho_, column_, tau_, work_;
+  std::vector<double> alpha_row_;
+  std::vector<int> row_touched_;
+  std::vector<char> in_row_;
+  std::vector<DualCandidate> candidates_;
+  std::vector<PrimalCandidate> primal_candidates_;
+
+  long iterations_ = 0;
+  long iteration_limit_ = 0;
+  int trouble_ = 0;
+  int ray_variable_ = -1;
+  std::string note_;
+  std::mt19937 random_{20261201};
+  std::chrono::steady_clock::time_point last_report_ = std::chrono::steady_clock::now();
+  long last_report_iteration_ = 0;
+};
+
+}  // namespace plumb::simplex::detail

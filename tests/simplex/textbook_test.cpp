@@ -1,0 +1,68 @@
+// Small textbook LPs: the float simplex must return a basis whose objective matches the known optimum.
+#include "plumb/simplex/float_simplex.hpp"
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <string>
+
+namespace {
+
+using plumb::model::ModelBuilder;
+using plumb::model::Rational;
+using plumb::simplex::FloatStatus;
+using plumb::simplex::solve_float;
+using plumb::simplex::VarStatus;
+
+int basic_count(const plumb::simplex::Basis& basis) {
+  int count = 0;
+  for (auto s : basis.columns) count += s == VarStatus::basic;
+  for (auto s : basis.rows) count += s == VarStatus::basic;
+  return count;
+}
+
+// Chvatal, "Linear Programming" (1983), chapter 2, the first worked example: optimum 13 at
+// x = (2, 0, 1).
+TEST(FloatSimplexTextbook, ChvatalChapterTwo) {
+  auto model = ModelBuilder("chvatal-2")
+                   .maximise()
+                   .column("x1", 5)
+                   .column("x2", 4)
+                   .column("x3", 3)
+                   .row("c1", {{"x1", 2}, {"x2", 3}, {"x3", 1}}, {}, Rational(5))
+                   .row("c2", {{"x1", 4}, {"x2", 1}, {"x3", 2}}, {}, Rational(11))
+                   .row("c3", {{"x1", 3}, {"x2", 4}, {"x3", 2}}, {}, Rational(8))
+                   .build();
+  auto result = solve_float(model);
+  ASSERT_EQ(result.status, FloatStatus::optimal) << result.note;
+  EXPECT_NEAR(result.objective, 13.0, 1e-9);
+  EXPECT_EQ(basic_count(result.basis), 3);
+  EXPECT_EQ(result.basis.columns[0], VarStatus::basic);
+  EXPECT_EQ(result.basis.columns[2], VarStatus::basic);
+}
+
+// Klee & Minty, "How good is the simplex algorithm?" (1972), in the common textbook form
+//   max sum_j 2^(n-j) x_j,  2 sum_{j<i} 2^(i-j) x_j + x_i <= 5^i,  x >= 0,
+// whose optimum is 5^n at x = (0, ..., 0, 5^n) (from memory; common practice in textbooks).
+TEST(FloatSimplexTextbook, KleeMinty) {
+  for (int n = 3; n <= 8; ++n) {
+    ModelBuilder builder("klee-minty-" + std::to_string(n));
+    builder.maximise();
+    for (int j = 1; j <= n; ++j) builder.column("x" + std::to_string(j), Rational(1 << (n - j)));
+    Rational rhs = 1;
+    for (int i = 1; i <= n; ++i) {
+      rhs *= 5;
+      std::vector<std::pair<std::string, Rational>> terms;
+      for (int j = 1; j < i; ++j) terms.push_back({"x" + std::to_string(j), Rational(2 * (1 << (i - j)))});
+      terms.push_back({"x" + std::to_string(i), Rational(1)});
+      builder.row("r" + std::to_string(i), terms, {}, rhs);
+    }
+    auto model = builder.build();
+    auto result = solve_float(model);
+    ASSERT_EQ(result.status, FloatStatus::optimal) << "n=" << n << ": " << result.note;
+    EXPECT_NEAR(result.objective, std::pow(5.0, n), 1e-9 * std::pow(5.0, n)) << "n=" << n;
+    EXPECT_EQ(basic_count(result.basis), n);
+  }
+}
+
+}  // namespace
