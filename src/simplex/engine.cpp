@@ -203,19 +203,19 @@ int Engine::count_primal_infeasible() const {
   return count;
 }
 
+double Engine::dual_infeasibility(int j) const {
+  if (status_[j] == VarStatus::basic || fixed(j)) return 0;
+  switch (status_[j]) {
+    case VarStatus::at_lower: return std::max(-d_[j], 0.0);
+    case VarStatus::at_upper: return std::max(d_[j], 0.0);
+    default: return std::abs(d_[j]);
+  }
+}
+
 int Engine::count_dual_infeasible(bool boxed_too) const {
   int count = 0;
-  for (int j = 0; j < m_ + n_; ++j) {
-    if (status_[j] == VarStatus::basic || fixed(j)) continue;
-    if (!boxed_too && boxed(j)) continue;
-    bool bad = false;
-    switch (status_[j]) {
-      case VarStatus::at_lower: bad = d_[j] < -dual_tolerance; break;
-      case VarStatus::at_upper: bad = d_[j] > dual_tolerance; break;
-      default: bad = std::abs(d_[j]) > dual_tolerance; break;
-    }
-    count += bad;
-  }
+  for (int j = 0; j < m_ + n_; ++j)
+    if (boxed_too || !boxed(j)) count += dual_infeasibility(j) > dual_tolerance;
   return count;
 }
 
@@ -266,6 +266,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
       refactor();
       compute_primal();
       compute_dual();
+      keep_dual_feasible();
       if (repaired_) return LoopEnd::restart;
       fresh = true;
     }
@@ -309,7 +310,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
           break;
       }
     }
-    DualStep step = dual_ratio_test(candidates_, std::abs(delta), dual_tolerance);
+    DualStep step = dual_ratio_test(candidates_, std::abs(delta), dual_tolerance, primal_tolerance);
     if (step.entering < 0) {
       clear_pivot_row();
       if (!fresh && factor_.update_count() > 0) {
@@ -402,13 +403,7 @@ Engine::LoopEnd Engine::primal_loop() {
     int q = -1;
     double best = dual_tolerance;
     for (int j = 0; j < m_ + n_; ++j) {
-      if (status_[j] == VarStatus::basic || fixed(j)) continue;
-      double infeasibility = 0;
-      switch (status_[j]) {
-        case VarStatus::at_lower: infeasibility = -d_[j]; break;
-        case VarStatus::at_upper: infeasibility = d_[j]; break;
-        default: infeasibility = std::abs(d_[j]); break;
-      }
+      double infeasibility = dual_infeasibility(j);
       if (infeasibility > best) best = infeasibility, q = j;
     }
     if (q < 0) return LoopEnd::optimal;
@@ -509,6 +504,41 @@ void Engine::perturb_costs() {
   costs_modified_ = true;
 }
 
+// Small dual infeasibilities left by tolerances are removed by shifting costs (Koberstein 2005,
+// section 6.2.2), to be undone with the perturbation; returns the largest infeasibility, and
+// shifts nothing when it exceeds `limit`.
+double Engine::shift_to_dual_feasible(double limit) {
+  double largest = 0;
+  for (int j = 0; j < m_ + n_; ++j) largest = std::max(largest, dual_infeasibility(j));
+  if (largest > limit) return largest;
+  for (int j = 0; j < m_ + n_; ++j)
+    if (dual_infeasibility(j) > dual_tolerance) {
+      cost_[j] -= d_[j];
+      d_[j] = 0;
+      costs_modified_ = true;
+    }
+  return largest;
+}
+
+// After fresh duals, reduced costs that rounding pushed to the wrong side are put right: a
+// boxed variable moves to its other bound, any other has its cost shifted (Koberstein 2005,
+// section 6.2.2), so the dual simplex keeps working on a dual feasible basis.
+void Engine::keep_dual_feasible() {
+  bool moved = false;
+  for (int j = 0; j < m_ + n_; ++j) {
+    if (dual_infeasibility(j) <= dual_tolerance) continue;
+    if (boxed(j)) {
+      set_nonbasic(j, status_[j] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower);
+      moved = true;
+    } else {
+      cost_[j] -= d_[j];
+      d_[j] = 0;
+      costs_modified_ = true;
+    }
+  }
+  if (moved) compute_primal();
+}
+
 void Engine::restore_costs() {
   cost_ = lp_.cost;
   costs_modified_ = false;
@@ -524,7 +554,9 @@ FloatStatus Engine::solve() {
       int primal_bad = count_primal_infeasible();
       int dual_bad = count_dual_infeasible(true);
       if (primal_bad == 0 && dual_bad == 0) {
-        if (!costs_modified_) return FloatStatus::optimal;
+        if (!costs_modified_) {
+          return FloatStatus::optimal;
+        }
         restore_costs();
         compute_dual();
         continue;
@@ -538,7 +570,7 @@ FloatStatus Engine::solve() {
         compute_primal();
         if (count_dual_infeasible(false) > 0) {
           end = dual_phase_one();
-          if (end == LoopEnd::optimal && count_dual_infeasible(false) > 0) {
+          if (end == LoopEnd::optimal && shift_to_dual_feasible(1e-5) > 1e-5) {
             note_ = "dual infeasible after dual phase 1";
             return FloatStatus::unbounded;
           }

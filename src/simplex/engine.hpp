@@ -60,6 +60,7 @@ class Engine {
   void clear_pivot_row();
   double primal_infeasibility(int j) const;  // > 0 when outside its bounds beyond tolerance
   int count_primal_infeasible() const;
+  double dual_infeasibility(int j) const;  // > 0 when its reduced cost has the wrong sign
   int count_dual_infeasible(bool boxed_too) const;
   bool polls_say_stop(const char* phase);
 
@@ -68,6 +69,8 @@ class Engine {
   LoopEnd dual_phase_one();
   void perturb_costs();
   void restore_costs();
+  void keep_dual_feasible();
+  double shift_to_dual_feasible(double limit);
   void pivot(int r, int entering, double primal_step);  // basis change at position r
 
   const LpData& lp_;

@@ -6,7 +6,8 @@
 
 namespace plumb::simplex::detail {
 
-DualStep dual_ratio_test(std::vector<DualCandidate>& candidates, double slope, double dual_tolerance) {
+DualStep dual_ratio_test(std::vector<DualCandidate>& candidates, double slope, double dual_tolerance,
+                         double primal_tolerance) {
   constexpr double infinity = std::numeric_limits<double>::infinity();
   DualStep result;
   auto remaining_begin = candidates.begin();
@@ -26,7 +27,7 @@ DualStep dual_ratio_test(std::vector<DualCandidate>& candidates, double slope, d
       remaining_begin = group_end;
       continue;
     }
-    if (slope_after > 0) {
+    if (slope_after > primal_tolerance) {
       // Every breakpoint can be passed and the slope stays positive: the dual is unbounded.
       return DualStep{};
     }

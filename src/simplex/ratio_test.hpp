@@ -26,9 +26,11 @@ struct DualStep {
 // "The dual simplex method, techniques for a fast and stable implementation" (thesis, Paderborn
 // 2005, section 3.2.1 and algorithm 7) and Maros (2003, section 10.3): breakpoints are passed in
 // Harris groups while the slope (starting at the primal infeasibility of the leaving variable)
-// stays positive; in the last group the candidate with the largest rate enters.  Reorders
-// `candidates`.
-DualStep dual_ratio_test(std::vector<DualCandidate>& candidates, double slope, double dual_tolerance);
+// stays positive; in the last group the candidate with the largest rate enters.  The dual is
+// unbounded only when the slope left after every breakpoint exceeds primal_tolerance (the
+// primal infeasibility that would remain).  Reorders `candidates`.
+DualStep dual_ratio_test(std::vector<DualCandidate>& candidates, double slope, double dual_tolerance,
+                         double primal_tolerance);
 
 // A basic variable that limits the primal step t >= 0: its distance to the bound it moves
 // towards (>= 0 when feasible) shrinks as distance - t * rate with rate > 0.

@@ -66,3 +66,41 @@ TEST(FloatSimplexTextbook, KleeMinty) {
 }
 
 }  // namespace
+
+namespace {
+
+// Facts of the trade: x >= 0 cannot make x1 + x2 <= -1, and max x1 with only x1 - x2 <= 1
+// grows without end along x1 = x2 + 1.
+TEST(FloatSimplexTextbook, InfeasibleAndUnbounded) {
+  auto infeasible = ModelBuilder("infeasible")
+                        .column("x1", 1)
+                        .column("x2", 1)
+                        .row("r", {{"x1", 1}, {"x2", 1}}, {}, Rational(-1))
+                        .build();
+  EXPECT_EQ(solve_float(infeasible).status, FloatStatus::infeasible);
+  auto unbounded = ModelBuilder("unbounded")
+                       .maximise()
+                       .column("x1", 1)
+                       .column("x2", 0)
+                       .row("r", {{"x1", 1}, {"x2", -1}}, {}, Rational(1))
+                       .build();
+  EXPECT_EQ(solve_float(unbounded).status, FloatStatus::unbounded);
+}
+
+// Free columns, a ranged row and an equation (worked by hand): min x - y with y free,
+// 1 <= x + y <= 4 and x - y = -2, x in [0, 10]; y = x + 2 so x + y = 2x + 2 in [1, 4] gives
+// x in [0, 1]; x - y = -2 always, so every feasible point has objective -2.
+TEST(FloatSimplexTextbook, FreeColumnRangedRowAndEquation) {
+  auto model = ModelBuilder("free-range")
+                   .column("x", 1, Rational(0), Rational(10))
+                   .column("y", -1, {}, {})
+                   .row("range", {{"x", 1}, {"y", 1}}, Rational(1), Rational(4))
+                   .row("equation", {{"x", 1}, {"y", -1}}, Rational(-2), Rational(-2))
+                   .build();
+  auto result = solve_float(model);
+  ASSERT_EQ(result.status, FloatStatus::optimal) << result.note;
+  EXPECT_NEAR(result.objective, -2.0, 1e-9);
+  EXPECT_EQ(basic_count(result.basis), 2);
+}
+
+}  // namespace
