@@ -1,4 +1,5 @@
 // The MPS reader and writer on small invented models, one convention at a time.
+#include "expect_input_error.hpp"
 #include "plumb/model/read.hpp"
 
 #include <gtest/gtest.h>
@@ -46,6 +47,16 @@ bool any_warning_contains(const Model& model, std::string_view phrase) {
   return false;
 }
 Side value(long numerator, long denominator = 1) { return Rational(numerator, denominator); }
+
+// Reading `text` must fail with the located error `bad` describes (its `input` names the case).
+void expect_read_error(const std::string& text, const plumb::test::BadInput& bad) {
+  try {
+    read_text(text);
+    ADD_FAILURE() << bad.input << ": read without error";
+  } catch (const InputError& e) {
+    plumb::test::expect_error_at(e, "test.mps", bad);
+  }
+}
 
 // One fixed-form line: each field padded into its columns 2-3, 5-12, 15-22, 25-36, 40-47, 50-61.
 std::string fixed_line(std::initializer_list<std::string> fields) {
@@ -189,8 +200,8 @@ TEST(MpsRead, ObjsenseBothPlacements) {
   EXPECT_EQ(read_text("NAME t\nOBJSENSE\n    MAXIMIZE\n" + body).objective.sense, Sense::maximise);
   EXPECT_EQ(read_text("NAME t\nOBJSENSE\n    MIN\n" + body).objective.sense, Sense::minimise);
   EXPECT_EQ(read_text("NAME t\nOBJSENSE MINIMIZE\n" + body).objective.sense, Sense::minimise);
-  EXPECT_THROW(read_text("NAME t\nOBJSENSE UPWARDS\n" + body), InputError);
-  EXPECT_THROW(read_text("NAME t\nOBJSENSE\n" + body), InputError);
+  expect_read_error("NAME t\nOBJSENSE UPWARDS\n" + body, {"UPWARDS", 2, 10, "objective sense \"UPWARDS\""});
+  expect_read_error("NAME t\nOBJSENSE\n" + body, {"no sense", 3, 1, "MIN or MAX on the line after OBJSENSE"});
 }
 
 // MPS format convention (common practice): bound types UP LO FX FR MI PL BV LI UI.
@@ -408,42 +419,17 @@ TEST(MpsRead, LayoutLabel) {
 TEST(MpsRead, FixedFormErrorsComeFromTheFixedReading) {
   std::string text = "NAME          SPACED\nROWS\n" + fixed_line({"N", "OB 1"}) + fixed_line({"L", "CAP 1"}) +
                      "COLUMNS\n" + fixed_line({"", "X 1", "OB 1", "1.", "CAP 9", "1."}) + "ENDATA\n";
-  try {
-    read_text(text);
-    FAIL() << "expected an InputError";
-  } catch (const InputError& e) {
-    EXPECT_EQ(e.where().line, 6);
-    EXPECT_EQ(e.where().column, 40);
-    EXPECT_NE(std::string(e.what()).find("unknown row \"CAP 9\""), std::string::npos) << e.what();
-  }
+  expect_read_error(text, {"fixed file, unknown row", 6, 40, "unknown row \"CAP 9\""});
   // A file that fits no fixed grid keeps its free-form diagnosis.
-  try {
-    read_text("NAME\nROWS\n N obj extra\nENDATA\n");
-    FAIL() << "expected an InputError";
-  } catch (const InputError& e) {
-    EXPECT_EQ(e.where().line, 3);
-    EXPECT_NE(std::string(e.what()).find("3 fields in a ROWS line"), std::string::npos) << e.what();
-  }
+  expect_read_error("NAME\nROWS\n N obj extra\nENDATA\n", {"extra field", 3, 8, "3 fields in a ROWS line"});
 }
 
 // A column's entries must be contiguous, and a row and column pair appears once (common practice).
 TEST(MpsRead, DuplicateEntryNamesBothLines) {
-  try {
-    read_text("NAME\nROWS\n N obj\n L c\nCOLUMNS\n x obj 1 c 2\n x c 3\nENDATA\n");
-    FAIL() << "expected an InputError";
-  } catch (const InputError& e) {
-    EXPECT_EQ(e.where().line, 7);
-    EXPECT_NE(std::string(e.what()).find("a second entry for column \"x\" in row \"c\" (first on line 6)"),
-              std::string::npos)
-        << e.what();
-  }
-  try {
-    read_text("NAME\nROWS\n N obj\n L c\nCOLUMNS\n x c 1\n y c 1\n x obj 1\nENDATA\n");
-    FAIL() << "expected an InputError";
-  } catch (const InputError& e) {
-    EXPECT_EQ(e.where().line, 8);
-    EXPECT_NE(std::string(e.what()).find("its entries began on line 6"), std::string::npos) << e.what();
-  }
+  expect_read_error("NAME\nROWS\n N obj\n L c\nCOLUMNS\n x obj 1 c 2\n x c 3\nENDATA\n",
+                    {"duplicate", 7, 4, "a second entry for column \"x\" in row \"c\" (first on line 6)"});
+  expect_read_error("NAME\nROWS\n N obj\n L c\nCOLUMNS\n x c 1\n y c 1\n x obj 1\nENDATA\n",
+                    {"resumed column", 8, 2, "its entries began on line 6"});
 }
 
 // Round trip (plumb's own contract): write, read back, the same model.
