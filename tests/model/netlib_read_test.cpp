@@ -1,11 +1,10 @@
 // Reading every Netlib instance: sizes against the published table (../shared/netlib/published.csv).
 #include "plumb/model/read.hpp"
+#include "shared_data.hpp"
 
 #include <gtest/gtest.h>
 
 #include <algorithm>
-#include <chrono>
-#include <cstdlib>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
@@ -16,23 +15,7 @@ using plumb::model::read_model;
 
 namespace {
 
-const fs::path shared_dir{PLUMB_SHARED_DIR};
-
-bool running_in_ci() {
-  const char* ci = std::getenv("CI");
-  return ci && std::string(ci) == "true";
-}
-
-// Skips (or fails under CI=true) when a shared folder is missing; true when it is there.
-bool require_folder(const fs::path& folder) {
-  if (fs::is_directory(folder)) return true;
-  if (running_in_ci()) {
-    ADD_FAILURE() << "shared data folder " << folder << " is missing (CI=true)";
-  } else {
-    GTEST_LOG_(INFO) << "skipping: shared data folder " << folder << " is missing";
-  }
-  return false;
-}
+using plumb::test::shared_dir;
 
 struct Published {
   std::string instance;
@@ -70,23 +53,16 @@ long objective_nonzeros(const Model& model) {
                                          [](const auto& c) { return c != 0; }));
 }
 
-std::vector<fs::path> mps_files(const fs::path& folder) {
-  std::vector<fs::path> files;
-  for (const auto& entry : fs::directory_iterator(folder))
-    if (entry.path().string().ends_with(".mps.gz")) files.push_back(entry.path());
-  std::sort(files.begin(), files.end());
-  return files;
-}
-
 }  // namespace
 
 // Source: the Netlib lp/data readme's summary table (published.csv); its counts include the
 // objective row and the objective coefficients.
 TEST(NetlibRead, SizesMatchThePublishedTable) {
-  if (!require_folder(shared_dir / "netlib")) GTEST_SKIP() << "no " << shared_dir / "netlib";
+  if (!plumb::test::shared_folder_present(shared_dir / "netlib"))
+    GTEST_SKIP() << "no " << shared_dir / "netlib";
   std::vector<Published> table = published_table();
   ASSERT_EQ(table.size(), 91u) << "published.csv should list the 91 feasible Netlib instances";
-  ASSERT_EQ(mps_files(shared_dir / "netlib").size(), 91u);
+  ASSERT_EQ(plumb::test::compressed_mps_files(shared_dir / "netlib").size(), 91u);
   for (const Published& p : table) {
     SCOPED_TRACE(p.instance);
     Model model = read_model((shared_dir / "netlib" / (p.instance + ".mps.gz")).string());
@@ -113,8 +89,9 @@ TEST(NetlibRead, SizesMatchThePublishedTable) {
 
 // Source: Netlib lp/infeas (27 infeasible instances); every file must read without error.
 TEST(NetlibRead, InfeasibleCollectionReads) {
-  if (!require_folder(shared_dir / "netlib-infeas")) GTEST_SKIP() << "no " << shared_dir / "netlib-infeas";
-  std::vector<fs::path> files = mps_files(shared_dir / "netlib-infeas");
+  if (!plumb::test::shared_folder_present(shared_dir / "netlib-infeas"))
+    GTEST_SKIP() << "no " << shared_dir / "netlib-infeas";
+  std::vector<fs::path> files = plumb::test::compressed_mps_files(shared_dir / "netlib-infeas");
   ASSERT_EQ(files.size(), 27u);
   for (const fs::path& file : files) {
     SCOPED_TRACE(file.filename().string());
@@ -128,10 +105,12 @@ TEST(NetlibRead, InfeasibleCollectionReads) {
 // Round trip (plumb's contract for write_mps): every Netlib model written as free MPS reads back
 // the same.  forplan's names contain blanks, which free MPS cannot hold: the writer refuses it.
 TEST(NetlibRead, EveryInstanceRoundTripsThroughFreeMps) {
-  if (!require_folder(shared_dir / "netlib") || !require_folder(shared_dir / "netlib-infeas"))
+  if (!plumb::test::shared_folder_present(shared_dir / "netlib") ||
+      !plumb::test::shared_folder_present(shared_dir / "netlib-infeas"))
     GTEST_SKIP() << "no Netlib folders under " << shared_dir;
-  std::vector<fs::path> files = mps_files(shared_dir / "netlib");
-  for (const fs::path& file : mps_files(shared_dir / "netlib-infeas")) files.push_back(file);
+  std::vector<fs::path> files = plumb::test::compressed_mps_files(shared_dir / "netlib");
+  for (const fs::path& file : plumb::test::compressed_mps_files(shared_dir / "netlib-infeas"))
+    files.push_back(file);
   ASSERT_EQ(files.size(), 118u);
   for (const fs::path& file : files) {
     SCOPED_TRACE(file.string());
