@@ -22,13 +22,14 @@ Engine::Engine(const LpData& lp, const FloatOptions& options)
   status_.assign(total, VarStatus::at_lower);
   head_.resize(m_);
   weight_.assign(m_, 1);
+  rejected_.assign(m_, 0);
   rho_.assign(m_, 0);
   column_.assign(m_, 0);
   tau_.assign(m_, 0);
   work_.assign(m_, 0);
   alpha_row_.assign(total, 0);
   in_row_.assign(total, 0);
-  iteration_limit_ = 20L * total + 20000;
+  iteration_limit_ = 10L * total + 10000;
   std::vector<VarStatus> slack(total, VarStatus::basic);
   for (int j = 0; j < n_; ++j) slack[j] = default_status(j);
   start_from(slack);
@@ -126,6 +127,14 @@ void Engine::refactor() {
   throw NumericalTrouble{"the basis stays singular after logicals were put in"};
 }
 
+bool Engine::refresh() {
+  refactor();
+  compute_primal();
+  compute_dual();
+  std::fill(rejected_.begin(), rejected_.end(), 0);
+  return repaired_;
+}
+
 void Engine::compute_primal() {
   std::fill(work_.begin(), work_.end(), 0.0);
   for (int j = 0; j < m_ + n_; ++j) {
@@ -153,6 +162,7 @@ void Engine::compute_dual() {
 }
 
 void Engine::compute_pivot_row() {
+  // Row-wise through the nonzeros of rho when it is sparse, else column by column.
   int nonzeros = 0;
   for (int i = 0; i < m_; ++i) nonzeros += rho_[i] != 0;
   auto touch = [&](int j, double v) {
@@ -263,22 +273,30 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     if (iterations_ >= iteration_limit_) return LoopEnd::limit;
     if (polls_say_stop(phase)) return LoopEnd::stopped;
     if (factor_.update_count() >= refactor_interval) {
-      refactor();
-      compute_primal();
-      compute_dual();
-      keep_dual_feasible();
-      if (repaired_) return LoopEnd::restart;
+      if (refresh()) return LoopEnd::restart;
       fresh = true;
     }
     // Pricing: dual steepest edge (Forrest & Goldfarb, "Steepest-edge simplex algorithms for
     // linear programming", Math. Programming 57, 1992): largest infeasibility^2 / weight.
+    // Rows whose pivot proved unusable on fresh factors sit out until the next factorization.
     int r = -1;
     double best = 0;
+    bool any_rejected = false;
     for (int k = 0; k < m_; ++k) {
       double infeasibility = primal_infeasibility(head_[k]);
       if (infeasibility <= 0) continue;
+      if (rejected_[k]) {
+        any_rejected = true;
+        continue;
+      }
       double score = infeasibility * infeasibility / weight_[k];
       if (score > best) best = score, r = k;
+    }
+    if (r < 0 && any_rejected) {
+      if (factor_.update_count() == 0) throw NumericalTrouble{"no usable pivot in any infeasible row"};
+      if (refresh()) return LoopEnd::restart;
+      fresh = true;
+      continue;
     }
     if (r < 0) return LoopEnd::optimal;
 
@@ -314,10 +332,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     if (step.entering < 0) {
       clear_pivot_row();
       if (!fresh && factor_.update_count() > 0) {
-        refactor();
-        compute_primal();
-        compute_dual();
-        if (repaired_) return LoopEnd::restart;
+        if (refresh()) return LoopEnd::restart;
         fresh = true;
         continue;
       }
@@ -329,17 +344,16 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     for_column(q, [&](int i, double v) { column_[i] = v; });
     factor_.ftran(column_);
     const double alpha = column_[r];
-    if (std::abs(alpha - alpha_row_[q]) > 1e-7 * (1 + std::abs(alpha)) || std::abs(alpha) < 1e-11) {
+    if (std::abs(alpha - alpha_row_[q]) > 1e-7 * (1 + std::abs(alpha)) || std::abs(alpha) < 1e-9) {
       clear_pivot_row();
-      if (++trouble_ > 200) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
+      if (++trouble_ > 1000) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
       if (factor_.update_count() > 0) {
-        refactor();
-        compute_primal();
-        compute_dual();
-        if (repaired_) return LoopEnd::restart;
-        fresh = true;
-        continue;
+        if (refresh()) return LoopEnd::restart;
+      } else {
+        rejected_[r] = 1;
       }
+      fresh = true;
+      continue;
     }
     fresh = false;
 
@@ -394,10 +408,7 @@ Engine::LoopEnd Engine::primal_loop() {
     if (iterations_ >= iteration_limit_) return LoopEnd::limit;
     if (polls_say_stop("primal clean-up")) return LoopEnd::stopped;
     if (factor_.update_count() >= refactor_interval) {
-      refactor();
-      compute_primal();
-      compute_dual();
-      if (repaired_ || count_primal_infeasible() > 0) return LoopEnd::restart;
+      if (refresh() || count_primal_infeasible() > 0) return LoopEnd::restart;
     }
     // Pricing: the largest dual infeasibility (Dantzig's rule on the scaled problem).
     int q = -1;
@@ -444,10 +455,7 @@ Engine::LoopEnd Engine::primal_loop() {
       clear_pivot_row();
       if (++trouble_ > 200) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
       if (factor_.update_count() > 0) {
-        refactor();
-        compute_primal();
-        compute_dual();
-        if (repaired_ || count_primal_infeasible() > 0) return LoopEnd::restart;
+        if (refresh() || count_primal_infeasible() > 0) return LoopEnd::restart;
         continue;
       }
     }
@@ -520,25 +528,6 @@ double Engine::shift_to_dual_feasible(double limit) {
   return largest;
 }
 
-// After fresh duals, reduced costs that rounding pushed to the wrong side are put right: a
-// boxed variable moves to its other bound, any other has its cost shifted (Koberstein 2005,
-// section 6.2.2), so the dual simplex keeps working on a dual feasible basis.
-void Engine::keep_dual_feasible() {
-  bool moved = false;
-  for (int j = 0; j < m_ + n_; ++j) {
-    if (dual_infeasibility(j) <= dual_tolerance) continue;
-    if (boxed(j)) {
-      set_nonbasic(j, status_[j] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower);
-      moved = true;
-    } else {
-      cost_[j] -= d_[j];
-      d_[j] = 0;
-      costs_modified_ = true;
-    }
-  }
-  if (moved) compute_primal();
-}
-
 void Engine::restore_costs() {
   cost_ = lp_.cost;
   costs_modified_ = false;
@@ -589,9 +578,7 @@ FloatStatus Engine::solve() {
       switch (end) {
         case LoopEnd::optimal:
         case LoopEnd::restart:
-          refactor();
-          compute_primal();
-          compute_dual();
+          refresh();
           break;
         case LoopEnd::infeasible: note_ = "dual ray found"; return FloatStatus::infeasible;
         case LoopEnd::unbounded: note_ = "primal ray found"; return FloatStatus::unbounded;

@@ -54,6 +54,7 @@ class Engine {
   void for_column(int j, F&& f) const;
 
   void refactor();  // may swap logicals in for a singular basis; sets repaired_
+  bool refresh();  // refactor and recompute primal and dual values; true when repaired
   void compute_primal();
   void compute_dual();
   void compute_pivot_row();  // alpha_row_ from rho_, over nonbasic variables
@@ -69,7 +70,6 @@ class Engine {
   LoopEnd dual_phase_one();
   void perturb_costs();
   void restore_costs();
-  void keep_dual_feasible();
   double shift_to_dual_feasible(double limit);
   void pivot(int r, int entering, double primal_step);  // basis change at position r
 
@@ -84,6 +84,7 @@ class Engine {
   std::vector<int> head_, position_;
   std::vector<VarStatus> status_;
   std::vector<double> weight_;  // dual steepest-edge weights per position
+  std::vector<char> rejected_;  // positions left out of dual pricing until the next factorization
   BasisFactor factor_;
   bool repaired_ = false;
 
