@@ -1,0 +1,318 @@
+#include "refine.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+namespace plumb::exact::detail {
+namespace {
+
+mpz_ptr z(Integer& value) { return value.backend().data(); }
+mpz_srcptr z(const Integer& value) { return value.backend().data(); }
+
+// Bits of the largest |entry|; 0 when every entry is zero.
+long max_bits(const std::vector<Integer>& values) {
+  long bits = 0;
+  for (const Integer& v : values)
+    if (mpz_sgn(z(v)) != 0) bits = std::max(bits, static_cast<long>(mpz_sizeinbase(z(v), 2)));
+  return bits;
+}
+
+bool all_zero(const std::vector<Integer>& values) {
+  return std::all_of(values.begin(), values.end(), [](const Integer& v) { return mpz_sgn(z(v)) == 0; });
+}
+
+// The last continued-fraction convergent p/q of a/b (b > 0) with q <= bound.  a and b are consumed.
+void best_convergent(Integer& a, Integer& b, const Integer& bound, Integer& p, Integer& q) {
+  Integer p_before = 0, q_before = 1, quotient, remainder, next;
+  p = 1, q = 0;
+  while (mpz_sgn(z(b)) != 0) {
+    mpz_fdiv_qr(z(quotient), z(remainder), z(a), z(b));
+    mpz_mul(z(next), z(quotient), z(q));
+    mpz_add(z(next), z(next), z(q_before));
+    if (mpz_cmp(z(next), z(bound)) > 0) break;
+    mpz_swap(z(q_before), z(q));
+    mpz_swap(z(q), z(next));
+    mpz_mul(z(next), z(quotient), z(p));
+    mpz_add(z(next), z(next), z(p_before));
+    mpz_swap(z(p_before), z(p));
+    mpz_swap(z(p), z(next));
+    mpz_swap(z(a), z(b));
+    mpz_swap(z(b), z(remainder));
+  }
+}
+
+}  // namespace
+
+RefinedSolver::IntegerMatrix RefinedSolver::scaled(int m, const std::vector<SparseColumn>& columns, bool transposed) {
+  IntegerMatrix matrix;
+  matrix.scale.assign(static_cast<std::size_t>(m), Integer(1));
+  // Row i of M is row i of B, or column i of B when transposed.
+  for (int j = 0; j < m; ++j)
+    for (std::size_t e = 0; e < columns[j].rows.size(); ++e) {
+      Integer& d = matrix.scale[transposed ? j : columns[j].rows[e]];
+      mpz_lcm(z(d), z(d), mpq_denref(columns[j].values[e].backend().data()));
+    }
+  std::vector<int> count(static_cast<std::size_t>(m) + 1, 0);
+  for (int j = 0; j < m; ++j)
+    for (int r : columns[j].rows) ++count[(transposed ? r : j) + 1];
+  matrix.start.assign(static_cast<std::size_t>(m) + 1, 0);
+  for (int c = 0; c < m; ++c) matrix.start[c + 1] = matrix.start[c] + count[c + 1];
+  matrix.index.resize(static_cast<std::size_t>(matrix.start[m]));
+  matrix.value.resize(static_cast<std::size_t>(matrix.start[m]));
+  std::vector<int> fill(matrix.start.begin(), matrix.start.end() - 1);
+  for (int j = 0; j < m; ++j)
+    for (std::size_t e = 0; e < columns[j].rows.size(); ++e) {
+      int r = columns[j].rows[e];
+      int row = transposed ? j : r, column = transposed ? r : j;
+      int slot = fill[column]++;
+      matrix.index[slot] = row;
+      const mpq_t& q = columns[j].values[e].backend().data();
+      Integer& v = matrix.value[slot];
+      mpz_divexact(z(v), z(matrix.scale[row]), mpq_denref(q));
+      mpz_mul(z(v), z(v), mpq_numref(q));
+    }
+  matrix.scale_mantissa.resize(static_cast<std::size_t>(m));
+  matrix.scale_exponent.resize(static_cast<std::size_t>(m));
+  for (int i = 0; i < m; ++i) matrix.scale_mantissa[i] = mpz_get_d_2exp(&matrix.scale_exponent[i], z(matrix.scale[i]));
+  return matrix;
+}
+
+bool RefinedSolver::factorize(int m, const std::vector<SparseColumn>& columns) {
+  m_ = m;
+  usable_ = false;
+  seed_ = 0;
+  simplex::detail::SparseVectors values;
+  for (int j = 0; j < m; ++j) {
+    for (std::size_t e = 0; e < columns[j].rows.size(); ++e) {
+      double v = numeric::to_double(columns[j].values[e]);
+      if (!std::isfinite(v)) return false;
+      if (v != 0) values.push(columns[j].rows[e], v);
+    }
+    values.close();
+  }
+  // Tiny pivots are acceptable here: a poor factor only slows the refinement, which then gives
+  // up, and the exact check stands behind every answer.
+  lu_.absolute_tolerance = 1e-14;
+  if (!lu_.factorize(m, values).empty()) return false;
+  primal_ = scaled(m, columns, false);
+  dual_ = scaled(m, columns, true);
+  usable_ = true;
+  return true;
+}
+
+std::optional<std::vector<Rational>> RefinedSolver::solve(const std::vector<Rational>& b) {
+  return refine(primal_, b, false);
+}
+
+std::optional<std::vector<Rational>> RefinedSolver::solve_transposed(const std::vector<Rational>& c) {
+  return refine(dual_, c, true);
+}
+
+// work_ = M^-1 (r / 2^shift) in double, with shift chosen so that r / (D 2^shift) is of order one.
+void RefinedSolver::float_solve(const IntegerMatrix& matrix, bool transposed, long& shift) {
+  shift = std::numeric_limits<long>::min();
+  std::vector<long> exponents(static_cast<std::size_t>(m_), 0);
+  work_.assign(static_cast<std::size_t>(m_), 0.0);
+  for (int i = 0; i < m_; ++i) {
+    if (mpz_sgn(z(residual_[i])) == 0) continue;
+    long e;
+    work_[i] = mpz_get_d_2exp(&e, z(residual_[i])) / matrix.scale_mantissa[i];
+    exponents[i] = e - matrix.scale_exponent[i];
+    shift = std::max(shift, exponents[i]);
+  }
+  for (int i = 0; i < m_; ++i)
+    if (work_[i] != 0) work_[i] = std::ldexp(work_[i], static_cast<int>(std::max(exponents[i] - shift, -2000L)));
+  if (transposed) lu_.btran(work_);
+  else lu_.ftran(work_);
+}
+
+// target -= M z.
+void RefinedSolver::subtract_product(const IntegerMatrix& matrix, const std::vector<Integer>& values,
+                                     std::vector<Integer>& target) {
+  for (int j = 0; j < m_; ++j) {
+    if (mpz_sgn(z(values[j])) == 0) continue;
+    for (int p = matrix.start[j]; p < matrix.start[j + 1]; ++p)
+      mpz_submul(z(target[matrix.index[p]]), z(matrix.value[p]), z(values[j]));
+  }
+}
+
+std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& matrix, const std::vector<Rational>& rhs,
+                                                           bool transposed) {
+  stats_ = {};
+  if (!usable_ || static_cast<int>(rhs.size()) != m_) return std::nullopt;
+  // rhs_ = L D rhs with L the least common denominator of D rhs.
+  rhs_denominator_ = 1;
+  std::vector<Rational> scaled_rhs(static_cast<std::size_t>(m_));
+  for (int i = 0; i < m_; ++i) {
+    mpq_ptr q = scaled_rhs[i].backend().data();
+    mpq_set(q, rhs[i].backend().data());
+    mpz_mul(mpq_numref(q), mpq_numref(q), z(matrix.scale[i]));
+    mpq_canonicalize(q);
+    mpz_lcm(z(rhs_denominator_), z(rhs_denominator_), mpq_denref(q));
+  }
+  rhs_.resize(static_cast<std::size_t>(m_));
+  for (int i = 0; i < m_; ++i) {
+    mpq_srcptr q = scaled_rhs[i].backend().data();
+    mpz_divexact(z(rhs_[i]), z(rhs_denominator_), mpq_denref(q));
+    mpz_mul(z(rhs_[i]), z(rhs_[i]), mpq_numref(q));
+  }
+  residual_ = rhs_;
+  numerator_.assign(static_cast<std::size_t>(m_), Integer(0));
+  correction_.assign(static_cast<std::size_t>(m_), Integer(0));
+  exponent_ = 0;
+  std::vector<Rational> answer;
+  if (all_zero(residual_)) return std::vector<Rational>(static_cast<std::size_t>(m_), Rational(0));
+
+  constexpr int max_step = 50;  // bits per step: a double holds 53
+  constexpr long min_gain = 4;
+  int step = max_step;
+  int stalls = 0;
+  long target = 64;
+  bool seed_tried = false;
+  long residual_bits = max_bits(residual_);
+  for (;;) {
+    long shift;
+    float_solve(matrix, transposed, shift);
+    double largest = 0;
+    for (double w : work_) {
+      if (!std::isfinite(w)) return std::nullopt;
+      largest = std::max(largest, std::abs(w));
+    }
+    if (largest == 0) return std::nullopt;
+    // |M^-1 r| is about 2^error_bits, so N / 2^E is within 2^(error_bits - E) of the solution.
+    const long error_bits = shift + std::ilogb(largest) + 1;
+    // The denominator of the previous verified answer often serves this one too (the primal and
+    // dual solutions at one basis share det B): with a known denominator Q, rounding N Q / 2^E
+    // needs only bits(Q) bits beyond the error, not the 2 bits(q) of a reconstruction.
+    if (!seed_tried && mpz_sgn(z(seed_)) > 0 &&
+        exponent_ - error_bits - limits_.guard_bits > static_cast<long>(mpz_sizeinbase(z(seed_), 2))) {
+      seed_tried = true;
+      if (reconstruct(matrix, error_bits, &seed_, answer)) return answer;
+    }
+    if (exponent_ - error_bits >= target) {
+      if (reconstruct(matrix, error_bits, nullptr, answer)) return answer;
+      target = (exponent_ - error_bits) * 5 / 4 + 32;
+    }
+    if (exponent_ > limits_.max_bits) return std::nullopt;
+
+    // One step: c = round(2^(step + shift) w), N <- 2^step N + c, r <- 2^step r - M c.
+    ++stats_.iterations;
+    const long scale = step + shift;
+    const int direct = static_cast<int>(std::min(scale, 900L));
+    for (int j = 0; j < m_; ++j) {
+      mpz_set_d(z(correction_[j]), std::nearbyint(std::ldexp(work_[j], direct)));
+      if (scale > direct) mpz_mul_2exp(z(correction_[j]), z(correction_[j]), static_cast<mp_bitcnt_t>(scale - direct));
+      mpz_mul_2exp(z(numerator_[j]), z(numerator_[j]), static_cast<mp_bitcnt_t>(step));
+      mpz_add(z(numerator_[j]), z(numerator_[j]), z(correction_[j]));
+    }
+    for (Integer& r : residual_) mpz_mul_2exp(z(r), z(r), static_cast<mp_bitcnt_t>(step));
+    subtract_product(matrix, correction_, residual_);
+    exponent_ += step;
+    stats_.bits = exponent_;
+    if (all_zero(residual_)) {
+      // N / 2^E is the exact solution.
+      candidate_ = numerator_;
+      Integer power = 1;
+      mpz_mul_2exp(z(power), z(power), static_cast<mp_bitcnt_t>(exponent_));
+      if (prove(matrix, power, answer)) return answer;
+      return std::nullopt;
+    }
+    // Bits of accuracy this step gained; the next step asks for as many (Wan 2006 picks the
+    // scale from the residual norm to the same end: the integer residual must not grow).
+    long new_bits = max_bits(residual_);
+    long gain = step - (new_bits - residual_bits);
+    residual_bits = new_bits;
+    // A few bits a step means the float LU is too inaccurate for B: the rational LU will do better.
+    stalls = gain < min_gain ? stalls + 1 : 0;
+    if (stalls > 3) return std::nullopt;
+    step = static_cast<int>(std::clamp(gain, 1L, static_cast<long>(max_step)));
+  }
+}
+
+// Tries to recover every component as p_j / (Q L) with a common Q and to prove M p = Q rhs_.
+// With a seed, only the guess p_j = round(N_j Q / 2^E) for Q = *seed is tried.
+bool RefinedSolver::reconstruct(const IntegerMatrix& matrix, long error_bits, const Integer* seed,
+                                std::vector<Rational>& answer) {
+  ++stats_.reconstructions;
+  const long slack_bits = std::max(0L, error_bits + limits_.guard_bits);
+  const long bound_bits = (exponent_ - slack_bits) / 2;  // denominators up to 2^bound_bits are unique
+  if (bound_bits < 1 && !seed) return false;
+  const mp_bitcnt_t e = static_cast<mp_bitcnt_t>(exponent_);
+  Integer common = seed ? *seed : Integer(1), bound, a, b, p, q, difference, allowed;
+  std::vector<std::pair<int, Integer>> factors;  // (component, factor of Q introduced there)
+  candidate_.resize(static_cast<std::size_t>(m_));
+  auto close_enough = [&](const Integer& scaled_numerator, const Integer& guess, const Integer& denominator) {
+    // |N_j Q q - p 2^E| <= Q q 2^slack, i.e. p / (Q q) lies within the error bound of N_j / 2^E.
+    mpz_mul_2exp(z(difference), z(guess), e);
+    mpz_sub(z(difference), z(scaled_numerator), z(difference));
+    mpz_mul_2exp(z(allowed), z(denominator), static_cast<mp_bitcnt_t>(slack_bits));
+    return mpz_cmpabs(z(difference), z(allowed)) <= 0;
+  };
+  for (int j = 0; j < m_; ++j) {
+    // First guess: the denominator found so far (Wan 2006; Cook and Steffy 2011).
+    mpz_mul(z(a), z(numerator_[j]), z(common));
+    if (e > 0) {
+      mpz_set_ui(z(p), 1);
+      mpz_mul_2exp(z(p), z(p), e - 1);
+      mpz_add(z(p), z(p), z(a));
+      mpz_fdiv_q_2exp(z(p), z(p), e);
+    } else {
+      p = a;
+    }
+    if (close_enough(a, p, common)) {
+      candidate_[j] = p;
+      continue;
+    }
+    // Otherwise the best continued-fraction approximation of N_j Q / 2^E with a bounded q.
+    if (seed) return false;
+    if (static_cast<long>(mpz_sizeinbase(z(common), 2)) > bound_bits) return false;
+    mpz_set_ui(z(bound), 1);
+    mpz_mul_2exp(z(bound), z(bound), static_cast<mp_bitcnt_t>(bound_bits));
+    mpz_fdiv_q(z(bound), z(bound), z(common));
+    Integer scaled_numerator = a;
+    mpz_set_ui(z(b), 1);
+    mpz_mul_2exp(z(b), z(b), e);
+    best_convergent(a, b, bound, p, q);
+    if (mpz_sgn(z(q)) == 0) return false;
+    mpz_mul(z(scaled_numerator), z(scaled_numerator), z(q));
+    mpz_mul(z(allowed), z(common), z(q));
+    Integer denominator = allowed;
+    if (!close_enough(scaled_numerator, p, denominator)) return false;
+    candidate_[j] = p;
+    mpz_mul(z(common), z(common), z(q));
+    factors.emplace_back(j, std::move(q));
+  }
+  // Bring every numerator to the final common denominator: component j still needs the factors
+  // introduced after it.
+  Integer later = 1;
+  std::size_t f = factors.size();
+  for (int j = m_ - 1; j >= 0; --j) {
+    while (f > 0 && factors[f - 1].first > j) mpz_mul(z(later), z(later), z(factors[--f].second));
+    mpz_mul(z(candidate_[j]), z(candidate_[j]), z(later));
+  }
+  return prove(matrix, common, answer);
+}
+
+// The proof: M p == Q rhs_ in exact integers, for p = candidate_ and Q = common; then
+// answer = p / (Q L).
+bool RefinedSolver::prove(const IntegerMatrix& matrix, Integer common, std::vector<Rational>& answer) {
+  check_.resize(static_cast<std::size_t>(m_));
+  for (int i = 0; i < m_; ++i) mpz_mul(z(check_[i]), z(rhs_[i]), z(common));
+  subtract_product(matrix, candidate_, check_);
+  if (!all_zero(check_)) return false;
+  stats_.denominator_bits = static_cast<long>(mpz_sizeinbase(z(common), 2));
+  mpz_mul(z(common), z(common), z(rhs_denominator_));
+  answer.resize(static_cast<std::size_t>(m_));
+  mpz_set_ui(z(seed_), 1);
+  for (int j = 0; j < m_; ++j) {
+    mpq_ptr x = answer[j].backend().data();
+    mpz_set(mpq_numref(x), z(candidate_[j]));
+    mpz_set(mpq_denref(x), z(common));
+    mpq_canonicalize(x);
+    mpz_lcm(z(seed_), z(seed_), mpq_denref(x));
+  }
+  return true;
+}
+
+}  // namespace plumb::exact::detail

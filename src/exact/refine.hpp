@@ -1,0 +1,92 @@
+// Internal to the exact engine: exact basis solves by float LU, iterative refinement on exact
+// integer residuals, rational reconstruction and an exact check of the answer.
+#pragma once
+
+#include "factor.hpp"
+#include "simplex/basis_factor.hpp"
+
+#include <optional>
+#include <vector>
+
+namespace plumb::exact::detail {
+
+using numeric::Integer;
+
+struct RefineLimits {
+  long max_bits = 1L << 16;  // give up once the accumulated denominator 2^E exceeds this many bits
+  int guard_bits = 8;        // reconstruction keeps this margin below the estimated accuracy
+};
+
+// What the last solve did, for benchmarks and tests.
+struct RefineStats {
+  int iterations = 0;        // refinement steps (one float solve and one exact residual each)
+  int reconstructions = 0;   // reconstruction attempts (each followed by an exact check when complete)
+  long bits = 0;             // E at the end: the solution was accumulated over 2^E
+  long denominator_bits = 0; // bits of the common denominator of the verified answer
+};
+
+// Solves B x = b and B^T y = c exactly for a square basis B given by its columns, by the
+// numeric-symbolic scheme of Z. Wan ("An algorithm to solve integer linear systems exactly using
+// numerical methods", J. Symbolic Computation 41, 2006): the system is scaled to integers; each
+// step solves for a correction in double with the float LU of B, scales it by 2^k and rounds it to
+// integers, and updates the integer residual r <- 2^k r - M c exactly, so that the accumulated
+// N / 2^E satisfies M N / 2^E = rhs - r / 2^E.  Each component is then recovered as the best
+// continued-fraction approximation with a bounded denominator (rational reconstruction, P. S. Wang,
+// "A p-adic algorithm for univariate partial fractions", SYMSAC 1981), trying the common
+// denominator found so far first (Wan 2006; W. Cook and D. E. Steffy, "Solving very sparse rational
+// systems of equations", ACM TOMS 37, 2011).  The candidate is accepted only after M x = rhs holds
+// in exact integer arithmetic: the float work guides, the multiplication proves.  Iterative
+// refinement for LP in this spirit: A. M. Gleixner, D. E. Steffy and K. Wolter, "Iterative
+// refinement for linear programming", INFORMS J. Computing 28, 2016; D. L. Applegate, W. Cook,
+// S. Dash and D. G. Espinoza, "Exact solutions to linear programming problems", Oper. Res.
+// Letters 35, 2007.
+class RefinedSolver {
+ public:
+  explicit RefinedSolver(RefineLimits limits = {}) : limits_(limits) {}
+
+  // Float LU of the m x m matrix with these columns; false when it finds the matrix singular (or
+  // a value does not fit a double), in which case every solve returns nullopt.
+  bool factorize(int m, const std::vector<SparseColumn>& columns);
+
+  // x with B x = b (b indexed by row, x by basis position), or nullopt when refinement stalls or
+  // no candidate passes the exact check within the limits.  Never a wrong answer.
+  std::optional<std::vector<Rational>> solve(const std::vector<Rational>& b);
+  // y with B^T y = c (c indexed by basis position, y by row), likewise.
+  std::optional<std::vector<Rational>> solve_transposed(const std::vector<Rational>& c);
+
+  const RefineStats& stats() const { return stats_; }
+
+  // M = D B (or D B^T), scaled to integers by the positive diagonal D of each row's least common
+  // denominator, column-wise.
+  struct IntegerMatrix {
+    std::vector<int> start, index;
+    std::vector<Integer> value;
+    std::vector<double> scale_mantissa;  // D_i = scale_mantissa_i * 2^scale_exponent_i, roughly
+    std::vector<long> scale_exponent;
+    std::vector<Integer> scale;          // D_i exactly
+  };
+
+ private:
+  static IntegerMatrix scaled(int m, const std::vector<SparseColumn>& columns, bool transposed);
+  std::optional<std::vector<Rational>> refine(const IntegerMatrix& matrix, const std::vector<Rational>& rhs,
+                                              bool transposed);
+  void float_solve(const IntegerMatrix& matrix, bool transposed, long& shift);
+  void subtract_product(const IntegerMatrix& matrix, const std::vector<Integer>& z, std::vector<Integer>& target);
+  bool reconstruct(const IntegerMatrix& matrix, long error_bits, const Integer* seed, std::vector<Rational>& answer);
+  bool prove(const IntegerMatrix& matrix, Integer common, std::vector<Rational>& answer);
+
+  RefineLimits limits_;
+  RefineStats stats_;
+  int m_ = 0;
+  bool usable_ = false;
+  simplex::detail::BasisFactor lu_;
+  IntegerMatrix primal_, dual_;
+  // Working storage reused across steps: rhs scaled to integers, N, r, corrections, checks.
+  std::vector<Integer> rhs_, numerator_, residual_, correction_, check_, candidate_;
+  Integer rhs_denominator_;  // the integer rhs is L * D * b
+  long exponent_ = 0;        // E
+  Integer seed_ = 0;         // least common denominator of the last verified answer, 0 before one
+  std::vector<double> work_;
+};
+
+}  // namespace plumb::exact::detail
