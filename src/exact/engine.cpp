@@ -7,14 +7,16 @@
 namespace plumb::exact::detail {
 namespace {
 
-// Refactorize after this many eta updates: exact etas grow in size, a fresh LU stays sparse.
-constexpr int refactor_interval = 64;
+// Refactorize once the eta file holds more limbs than the LU (plus one per row): exact eta
+// vectors are dense and their fractions long, so applying them soon costs more than a fresh
+// factorization (measured on Netlib: a fixed 64 updates was 3-4 times slower).
+constexpr std::size_t refactor_limbs_per_row = 1;
 // Degenerate pivots in a row before Bland's rule takes over.
 constexpr int degenerate_run_limit = 24;
 // Pricing candidates whose estimated reduced cost is below this are left to the exact scan.
 constexpr double pricing_tolerance = 1e-9;
 // How many of the best-estimated candidates are tried exactly before a full exact scan.
-constexpr int pricing_tries = 8;
+constexpr int pricing_tries = 3;
 
 }  // namespace
 
@@ -61,6 +63,7 @@ Engine::Engine(const model::Model& model, run::Budget* budget, const std::functi
   duals_.resize(m_);
   pivot_row_.resize(total());
   dual_estimate_.assign(static_cast<std::size_t>(m_), 0.0);
+  cost_estimate_of_basis_.assign(static_cast<std::size_t>(m_), 0.0);
 }
 
 void Engine::scatter_column(int k, SparseVector& target) const {
@@ -256,7 +259,9 @@ bool Engine::poll(const char* phase) {
     if (budget_) progress.elapsed_seconds = budget_->elapsed_seconds();
     (*progress_)(progress);
   }
-  if (factor_.updates() >= refactor_interval) refactor();
+  if (factor_.updates() > 0 &&
+      factor_.eta_limbs() > factor_.factor_limbs() + refactor_limbs_per_row * static_cast<std::size_t>(m_))
+    refactor();
   return true;
 }
 
@@ -278,13 +283,16 @@ Engine::Step Engine::primal() {
   for (;;) {
     bool phase_one = infeasible_basis();
     if (!poll(phase_one ? "exact primal phase 1" : "exact primal")) return Step::stopped;
-    compute_duals(phase_one);
 
-    // Pricing: Dantzig's rule on double estimates, every choice confirmed exactly.
+    // Pricing: Dantzig's rule on double estimates of the duals; each candidate's reduced cost is
+    // then computed exactly from its column, d_q = c_q - c_B^T (B^{-1} a_q).
     int entering = -1;
     if (!bland_) {
-      for (int i = 0; i < m_; ++i) dual_estimate_[i] = 0;
-      for (int i : duals_.pattern()) dual_estimate_[i] = numeric::to_double(duals_[i]);
+      for (int p = 0; p < m_; ++p) {
+        int k = head_[p];
+        cost_estimate_of_basis_[p] = phase_one ? (below(k) ? -1.0 : above(k) ? 1.0 : 0.0) : cost_estimate_[k];
+      }
+      factor_.estimate_btran(cost_estimate_of_basis_, dual_estimate_);
       candidates.clear();
       std::size_t entry = 0;
       for (int j = 0; j < n_; ++j) {
@@ -295,29 +303,23 @@ Engine::Step Engine::primal() {
         }
         double d = phase_one ? 0.0 : cost_estimate_[j];
         for (int r : rows) d -= matrix_estimate_[entry++] * dual_estimate_[r];
-        bool wanted = status_[j] == VarStatus::at_lower ? d < -pricing_tolerance
-                      : status_[j] == VarStatus::at_upper ? d > pricing_tolerance
-                                                          : std::abs(d) > pricing_tolerance;
-        if (wanted) candidates.emplace_back(-std::abs(d), j);
+        if (improving_estimate(j, d)) candidates.emplace_back(-std::abs(d), j);
       }
-      for (int i = 0; i < m_; ++i) {
-        int k = n_ + i;
-        if (basic(k) || fixed_[k]) continue;
-        double d = dual_estimate_[i];
-        bool wanted = status_[k] == VarStatus::at_lower ? d < -pricing_tolerance
-                      : status_[k] == VarStatus::at_upper ? d > pricing_tolerance
-                                                          : std::abs(d) > pricing_tolerance;
-        if (wanted) candidates.emplace_back(-std::abs(d), k);
-      }
+      for (int i = 0; i < m_; ++i)
+        if (!basic(n_ + i) && !fixed_[n_ + i] && improving_estimate(n_ + i, dual_estimate_[i]))
+          candidates.emplace_back(-std::abs(dual_estimate_[i]), n_ + i);
       std::size_t tries = std::min<std::size_t>(candidates.size(), pricing_tries);
       std::partial_sort(candidates.begin(), candidates.begin() + static_cast<long>(tries), candidates.end());
       for (std::size_t c = 0; c < tries && entering < 0; ++c) {
-        reduced_cost(candidates[c].second, phase_one, d_);
-        if (eligible(candidates[c].second, d_)) entering = candidates[c].second;
+        int k = candidates[c].second;
+        entering_column(k);
+        reduced_cost_from_column(k, phase_one, d_);
+        if (eligible(k, d_)) entering = k;
       }
     }
     if (entering < 0) {
       // Exact scan: the lowest eligible index under Bland's rule, else the largest |d|.
+      compute_duals(phase_one);
       double best = -1;
       for (int k = 0; k < total(); ++k) {
         if (basic(k) || fixed_[k]) continue;
@@ -331,23 +333,20 @@ Engine::Step Engine::primal() {
         double size = std::abs(numeric::to_double(ratio_));
         if (size > best) best = size, entering = k, d_ = ratio_;
       }
-    }
-    if (entering < 0) {
-      if (phase_one) {
-        farkas_.assign(static_cast<std::size_t>(m_), Rational(0));
-        for (int i : duals_.pattern()) farkas_[i] = duals_[i];
-        return Step::infeasible;
+      if (entering < 0) {
+        if (phase_one) {
+          farkas_.assign(static_cast<std::size_t>(m_), Rational(0));
+          for (int i : duals_.pattern()) farkas_[i] = duals_[i];
+          return Step::infeasible;
+        }
+        return Step::done;
       }
-      return Step::done;
+      entering_column(entering);
     }
     const int direction = status_[entering] == VarStatus::at_lower   ? 1
                           : status_[entering] == VarStatus::at_upper ? -1
                           : sign_of(d_) < 0                          ? 1
                                                                      : -1;
-    rows_.clear();
-    scatter_column(entering, rows_);
-    factor_.ftran(rows_, alpha_);
-
     // Ratio test, exact.  Basic variable at position p moves by -direction * alpha_p per unit.
     // A feasible one blocks at the bound it moves towards; an infeasible one blocks where it
     // becomes feasible (the first breakpoint of the phase-1 objective) and never while moving away.
@@ -422,6 +421,37 @@ Engine::Step Engine::primal() {
       value_[entering] = direction > 0 ? *upper_[entering] : *lower_[entering];
     } else {
       exchange(entering, leaving_position, leaving_status);
+    }
+  }
+}
+
+bool Engine::improving_estimate(int k, double d) const {
+  switch (status_[k]) {
+    case VarStatus::at_lower: return d < -pricing_tolerance;
+    case VarStatus::at_upper: return d > pricing_tolerance;
+    default: return std::abs(d) > pricing_tolerance;
+  }
+}
+
+void Engine::entering_column(int k) {
+  rows_.clear();
+  scatter_column(k, rows_);
+  factor_.ftran(rows_, alpha_);
+}
+
+void Engine::reduced_cost_from_column(int k, bool phase_one, Rational& out) {
+  if (phase_one) out = 0;
+  else out = cost_[k];
+  for (int p : alpha_.pattern()) {
+    const Rational& a = alpha_[p];
+    if (is_zero(a)) continue;
+    int basic_variable = head_[p];
+    if (!phase_one) {
+      if (!is_zero(cost_[basic_variable])) subtract_product(out, cost_[basic_variable], a, scratch_);
+    } else if (below(basic_variable)) {
+      out += a;
+    } else if (above(basic_variable)) {
+      out -= a;
     }
   }
 }
@@ -521,9 +551,7 @@ Engine::Step Engine::dual() {
       degenerate_run_ = 0;
       bland_ = false;
     }
-    rows_.clear();
-    scatter_column(entering, rows_);
-    factor_.ftran(rows_, alpha_);
+    entering_column(entering);
     // Primal step: theta moves the leaving variable exactly onto its violated bound.
     const Rational& bound = to_lower ? *lower_[leaving] : *upper_[leaving];
     Rational theta = value_[leaving] - bound;

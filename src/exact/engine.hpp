@@ -63,6 +63,9 @@ class Engine {
   void compute_duals(bool phase_one);
   void reduced_cost(int k, bool phase_one, Rational& out);
   bool eligible(int k, const Rational& d) const;
+  bool improving_estimate(int k, double d) const;
+  void entering_column(int k);  // alpha_ = B^{-1} times column k
+  void reduced_cost_from_column(int k, bool phase_one, Rational& out);
   bool make_dual_feasible();
   Step primal();
   Step dual();
@@ -84,7 +87,7 @@ class Engine {
   std::vector<int> position_;  // variable -> basis position, -1 when nonbasic
   BasisFactor factor_;
   SparseVector rows_, positions_, alpha_, duals_, pivot_row_;
-  std::vector<double> dual_estimate_;
+  std::vector<double> dual_estimate_, cost_estimate_of_basis_;
   Rational scratch_, d_, ratio_, best_ratio_;
   long iterations_ = 0;
   int degenerate_run_ = 0;

@@ -51,12 +51,11 @@ void BasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
   const int k = static_cast<int>(columns.size());
   pivots_.clear();
   etas_.clear();
-  eta_nonzeros_ = 0;
-  factor_nonzeros_ = 0;
+  eta_limbs_ = 0;
+  factor_limbs_ = 0;
   dependent_columns_.clear();
   uncovered_rows_.clear();
   upper_column_.clear();
-  pivot_of_position_.clear();
 
   // The active submatrix, column-wise with values and row-wise as a pattern.
   std::vector<std::vector<std::pair<int, Rational>>> active(static_cast<std::size_t>(k));
@@ -174,7 +173,9 @@ void BasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
         emptied.clear();
       }
     }
-    factor_nonzeros_ += 1 + pivot.lower.size() + pivot.upper_row.size();
+    factor_limbs_ += limbs(pivot.value);
+    for (const auto& entry : pivot.lower) factor_limbs_ += limbs(entry.second);
+    for (const auto& entry : pivot.upper_row) factor_limbs_ += limbs(entry.second);
     pivots_.push_back(std::move(pivot));
   }
   for (int r = 0; r < m; ++r)
@@ -183,11 +184,13 @@ void BasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
   if (!nonsingular() || k != m) return;
 
   upper_column_.assign(static_cast<std::size_t>(m), {});
-  pivot_of_position_.assign(static_cast<std::size_t>(m), -1);
-  for (std::size_t p = 0; p < pivots_.size(); ++p) {
-    pivot_of_position_[pivots_[p].position] = static_cast<int>(p);
-    for (const auto& [position, value] : pivots_[p].upper_row)
-      upper_column_[position].emplace_back(pivots_[p].row, value);
+  for (Pivot& pivot : pivots_) {
+    pivot.value_estimate = numeric::to_double(pivot.value);
+    for (const auto& [row, value] : pivot.lower) pivot.lower_estimate.push_back(numeric::to_double(value));
+    for (const auto& [position, value] : pivot.upper_row) {
+      upper_column_[position].emplace_back(pivot.row, value);
+      pivot.upper_row_estimate.push_back(numeric::to_double(value));
+    }
   }
 }
 
@@ -250,6 +253,28 @@ void BasisFactor::btran(SparseVector& c, SparseVector& result) {
   }
 }
 
+void BasisFactor::estimate_btran(std::vector<double>& c, std::vector<double>& y) const {
+  for (auto eta = etas_.rbegin(); eta != etas_.rend(); ++eta) {
+    double value = c[eta->position];
+    for (std::size_t e = 0; e < eta->others.size(); ++e) value -= eta->others_estimate[e] * c[eta->others[e].first];
+    c[eta->position] = value / eta->pivot_estimate;
+  }
+  std::fill(y.begin(), y.end(), 0.0);
+  for (const Pivot& pivot : pivots_) {
+    double w = c[pivot.position];
+    if (w == 0) continue;
+    w /= pivot.value_estimate;
+    y[pivot.row] = w;
+    for (std::size_t e = 0; e < pivot.upper_row.size(); ++e)
+      c[pivot.upper_row[e].first] -= pivot.upper_row_estimate[e] * w;
+  }
+  for (auto p = pivots_.rbegin(); p != pivots_.rend(); ++p) {
+    double value = y[p->row];
+    for (std::size_t e = 0; e < p->lower.size(); ++e) value -= p->lower_estimate[e] * y[p->lower[e].first];
+    y[p->row] = value;
+  }
+}
+
 void BasisFactor::update(int position, const SparseVector& alpha) {
   Eta eta;
   eta.position = position;
@@ -257,7 +282,12 @@ void BasisFactor::update(int position, const SparseVector& alpha) {
   for (int i : alpha.pattern())
     if (i != position && !is_zero(alpha[i])) eta.others.emplace_back(i, alpha[i]);
   std::sort(eta.others.begin(), eta.others.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
-  eta_nonzeros_ += 1 + eta.others.size();
+  eta_limbs_ += limbs(eta.pivot);
+  eta.pivot_estimate = numeric::to_double(eta.pivot);
+  for (const auto& entry : eta.others) {
+    eta_limbs_ += limbs(entry.second);
+    eta.others_estimate.push_back(numeric::to_double(entry.second));
+  }
   etas_.push_back(std::move(eta));
 }
 

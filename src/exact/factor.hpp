@@ -19,6 +19,10 @@ inline void add_product(Rational& acc, const Rational& a, const Rational& b, Rat
   mpq_mul(scratch.backend().data(), a.backend().data(), b.backend().data());
   mpq_add(acc.backend().data(), acc.backend().data(), scratch.backend().data());
 }
+// Limbs of numerator and denominator: the cost of arithmetic with the value grows with it.
+inline std::size_t limbs(const Rational& value) {
+  return mpz_size(mpq_numref(value.backend().data())) + mpz_size(mpq_denref(value.backend().data()));
+}
 inline bool is_zero(const Rational& value) { return mpq_sgn(value.backend().data()) == 0; }
 inline int sign_of(const Rational& value) { return mpq_sgn(value.backend().data()); }
 
@@ -78,11 +82,16 @@ class BasisFactor {
   // and c is cleared.
   void btran(SparseVector& c, SparseVector& result);
 
+  // B^T y = c in doubles through rounded copies of the same factors: an estimate for pricing,
+  // never a decision.  c (by basis position) is overwritten; y is indexed by row.
+  void estimate_btran(std::vector<double>& c, std::vector<double>& y) const;
+
   // Records that basis position `position` now holds the column whose ftran is `alpha`.
   void update(int position, const SparseVector& alpha);
   int updates() const { return static_cast<int>(etas_.size()); }
-  std::size_t eta_nonzeros() const { return eta_nonzeros_; }
-  std::size_t factor_nonzeros() const { return factor_nonzeros_; }
+  // Sizes in limbs: applying the eta file costs about eta_limbs(), the LU about factor_limbs().
+  std::size_t eta_limbs() const { return eta_limbs_; }
+  std::size_t factor_limbs() const { return factor_limbs_; }
 
  private:
   struct Pivot {
@@ -91,22 +100,26 @@ class BasisFactor {
     Rational value;
     std::vector<std::pair<int, Rational>> lower;        // (row, multiplier) eliminated below
     std::vector<std::pair<int, Rational>> upper_row;    // (position, value) of later pivots
+    // Double copies for estimate_btran, in the same order.
+    double value_estimate = 0;
+    std::vector<double> lower_estimate, upper_row_estimate;
   };
   struct Eta {
     int position;
     Rational pivot;
     std::vector<std::pair<int, Rational>> others;  // (position, alpha) for position != pivot's
+    double pivot_estimate = 0;
+    std::vector<double> others_estimate;
   };
   int m_ = 0;
   std::vector<Pivot> pivots_;
   // Column-wise copy of U: for each position, (row of an earlier pivot, value).
   std::vector<std::vector<std::pair<int, Rational>>> upper_column_;
-  std::vector<int> pivot_of_position_;
   std::vector<Eta> etas_;
   std::vector<int> dependent_columns_;
   std::vector<int> uncovered_rows_;
-  std::size_t eta_nonzeros_ = 0;
-  std::size_t factor_nonzeros_ = 0;
+  std::size_t eta_limbs_ = 0;
+  std::size_t factor_limbs_ = 0;
   Rational scratch_;
   Rational value_;
 };
