@@ -79,8 +79,10 @@ std::vector<int> listed(const std::vector<Rational>& values, bool all) {
   return indices;
 }
 
+// One line per index: name, value (with the fraction when the decimal is rounded or longer), the
+// unit when the values are in the labelled quantity's own unit, and the label statement.
 void print_values(std::ostream& out, const std::vector<int>& indices, const std::vector<Rational>& values,
-                  auto name_of, auto label_of, std::size_t limit) {
+                  auto name_of, auto label_of, bool own_unit, std::size_t limit) {
   std::size_t width = 0;
   for (int k : indices) width = std::max(width, name_of(k).size());
   std::size_t shown = 0;
@@ -93,7 +95,7 @@ void print_values(std::ostream& out, const std::vector<int>& indices, const std:
     std::string value = numeric::to_display(values[k]);
     std::string fraction = numeric::to_fraction(values[k]);
     out << "    " << name_of(k) << std::string(width - name_of(k).size() + 2, ' ') << value;
-    if (!label.unit.empty()) out << " " << label.unit;
+    if (own_unit && !label.unit.empty()) out << " " << label.unit;
     if (value != fraction) out << "  (= " << fraction << ")";
     if (!label.statement.empty()) out << "  -- " << label.statement;
     out << "\n";
@@ -116,24 +118,26 @@ void print_text(const model::Model& model, const exact::CertifiedSolution& resul
   const std::size_t no_limit = static_cast<std::size_t>(-1);
   if (s.outcome == exact::Outcome::optimal) {
     bool maximise = model.objective.sense == model::Sense::maximise;
-    out << "objective  " << numeric::to_display(s.objective) << "  (= " << numeric::to_fraction(s.objective)
-        << ", " << (maximise ? "maximised" : "minimised") << ")\n";
+    std::string shown = numeric::to_display(s.objective), fraction = numeric::to_fraction(s.objective);
+    out << "objective  " << shown << (shown == fraction ? "" : "  (= " + fraction + ")") << ", "
+        << (maximise ? "maximised" : "minimised") << "\n";
     out << "           includes the objective constant " << numeric::to_fraction(model.objective.constant) << ": "
         << constant_convention(model) << "\n";
     auto indices = listed(s.x, options.all);
     out << "solution   " << (options.all ? "all " : "") << indices.size() << " of " << model.column_count()
-        << " columns" << (options.all ? "" : " non-zero; the rest are 0") << "\n";
-    print_values(out, indices, s.x, column_name, column_label, no_limit);
+        << " columns" << (options.all ? "" : " non-zero")
+        << (options.all || static_cast<int>(indices.size()) == model.column_count() ? "" : "; the rest are 0") << "\n";
+    print_values(out, indices, s.x, column_name, column_label, true, no_limit);
   } else if (s.outcome == exact::Outcome::infeasible) {
     auto indices = listed(s.y, false);
     out << "proof      Farkas multipliers on " << indices.size()
         << " rows: their weighted sum is a row no point within the bounds can satisfy\n";
-    print_values(out, indices, s.y, row_name, row_label, options.all ? no_limit : listed_rows_by_default);
+    print_values(out, indices, s.y, row_name, row_label, false, options.all ? no_limit : listed_rows_by_default);
   } else if (s.outcome == exact::Outcome::unbounded) {
     auto indices = listed(s.ray, false);
     out << "proof      a feasible point and a direction along which the objective keeps improving\n";
     out << "direction  " << indices.size() << " columns move:\n";
-    print_values(out, indices, s.ray, column_name, column_label, no_limit);
+    print_values(out, indices, s.ray, column_name, column_label, true, no_limit);
   }
   out << "checked    " << result.verdict.proven << "\n";
   if (!options.certificate_path.empty()) out << "certificate written to " << options.certificate_path << "\n";
