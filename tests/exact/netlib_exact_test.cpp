@@ -3,10 +3,11 @@
 // infeasible instances from Netlib lp/infeas.
 #include "plumb/exact/solve.hpp"
 #include "plumb/model/read.hpp"
+#include "check/mutations.hpp"
+#include "shared_data.hpp"
 
 #include <gtest/gtest.h>
 
-#include <cstdlib>
 #include <filesystem>
 #include <fstream>
 #include <map>
@@ -17,15 +18,8 @@ namespace {
 namespace fs = std::filesystem;
 using numeric::Rational;
 
-const fs::path shared_folder{PLUMB_SHARED_DIR};
-
-// True when the folder exists; otherwise skips, or fails when CI=true.
-bool have_shared_data(const fs::path& folder) {
-  if (fs::is_directory(folder)) return true;
-  const char* ci = std::getenv("CI");
-  if (ci && std::string(ci) == "true") ADD_FAILURE() << "missing shared data folder " << folder << " (CI=true)";
-  return false;
-}
+const fs::path& shared_folder = test::shared_dir;
+using test::shared_folder_present;
 
 // instance -> published optimum as printed.
 std::map<std::string, std::string> published_optima() {
@@ -57,13 +51,17 @@ int significant_digits(const std::string& printed) {
   return digits;
 }
 
-// The pure engine; the independent checker must accept its result without a fallback.
+// The pure engine; the independent checker must accept its result without a fallback, and must
+// reject every edit that provably breaks the certificate (tests/check/mutations.hpp).
 Solution solve_exactly(const model::Model& model) {
   SolveOptions options;
   options.method = Method::exact;
   CertifiedSolution result = certified_solve(model, options);
   EXPECT_TRUE(result.certified()) << result.verdict.failure;
   EXPECT_TRUE(result.rejections.empty());
+  auto mutations = plumb::testing::provable_mutations(model, result.certificate);
+  EXPECT_GE(mutations.size(), 3u) << model.source.path;
+  for (const auto& mutation : mutations) plumb::testing::expect_rejected(model, mutation);
   return result.solution;
 }
 
@@ -78,7 +76,7 @@ class NetlibExactOptimum : public ::testing::TestWithParam<FeasibleCase> {};
 
 TEST_P(NetlibExactOptimum, MatchesPublishedValueWithValidCertificate) {
   const FeasibleCase& c = GetParam();
-  if (!have_shared_data(shared_folder / "netlib")) GTEST_SKIP() << "no " << shared_folder / "netlib";
+  if (!shared_folder_present(shared_folder / "netlib")) GTEST_SKIP() << "no " << shared_folder / "netlib";
   model::ReadOptions read;
   // The Netlib readme's optimum for e226 leaves out its objective constant (shared/README.md).
   if (c.instance == "e226") read.constant_rule = model::ObjectiveConstantRule::ignored;
@@ -115,7 +113,7 @@ INSTANTIATE_TEST_SUITE_P(
 class NetlibExactInfeasible : public ::testing::TestWithParam<std::string> {};
 
 TEST_P(NetlibExactInfeasible, HasValidFarkasCertificate) {
-  if (!have_shared_data(shared_folder / "netlib-infeas")) GTEST_SKIP() << "no " << shared_folder / "netlib-infeas";
+  if (!shared_folder_present(shared_folder / "netlib-infeas")) GTEST_SKIP() << "no " << shared_folder / "netlib-infeas";
   model::Model model = model::read_model((shared_folder / "netlib-infeas" / (GetParam() + ".mps.gz")).string());
   Solution s = solve_exactly(model);
   EXPECT_EQ(s.outcome, Outcome::infeasible);
@@ -128,7 +126,7 @@ INSTANTIATE_TEST_SUITE_P(Netlib, NetlibExactInfeasible,
 
 // Same input, same certificate bytes (common practice for auditable output).
 TEST(NetlibExactDeterminism, SameInputSameCertificateText) {
-  if (!have_shared_data(shared_folder / "netlib")) GTEST_SKIP() << "no " << shared_folder / "netlib";
+  if (!shared_folder_present(shared_folder / "netlib")) GTEST_SKIP() << "no " << shared_folder / "netlib";
   for (const char* instance : {"afiro", "sc50a"}) {
     auto path = (shared_folder / "netlib" / (std::string(instance) + ".mps.gz")).string();
     model::Model first = model::read_model(path), second = model::read_model(path);
