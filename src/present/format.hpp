@@ -1,0 +1,59 @@
+// Internal to present: aligned tables and the number and list wording every rendering shares.
+#pragma once
+
+#include "plumb/model/model.hpp"
+#include "plumb/numeric/rational.hpp"
+
+#include <nlohmann/json.hpp>
+
+#include <cstddef>
+#include <iosfwd>
+#include <string>
+#include <vector>
+
+namespace plumb::present::detail {
+
+using numeric::Rational;
+
+// Rows of cells printed in columns padded to the widest cell; the last column is never padded.
+class Table {
+ public:
+  enum class Align { left, right };
+  explicit Table(std::vector<Align> alignment = {}) : alignment_(std::move(alignment)) {}
+  Table& add(std::vector<std::string> cells);
+  bool empty() const { return rows_.empty(); }
+  // Each row on its own line, starting with `indent`, cells separated by `gap` spaces.
+  void write(std::ostream& out, const std::string& indent = "  ", std::size_t gap = 2) const;
+
+ private:
+  std::vector<Align> alignment_;
+  std::vector<std::vector<std::string>> rows_;
+};
+
+// A heading line and nothing else: sections of the text renderings start with it.
+void write_heading(std::ostream& out, const std::string& heading);
+
+// The exact value, then its decimal when that says something more: "42", "1/3 (~0.333333333333)",
+// "1/8 (0.125)".  Fractions too long to read are shown as the decimal alone, marked "~".
+std::string exact_and_decimal(const Rational& value);
+
+// Scientific form for magnitudes and ratios: "1e+8", "~2.5e-3", "3e+0".
+std::string scientific(const Rational& value, int significant = 3);
+
+// A percentage with three significant digits: "9.62 %", "~0.0413 %".
+std::string percent(const Rational& fraction);
+
+// A side or bound: the exact value, or "-inf"/"+inf" when it is absent.
+std::string side_text(const model::Side& side, bool is_lower);
+
+// "3 rows", "1 row".
+std::string count_of(std::size_t count, const std::string& singular, const std::string& plural);
+
+// The first `shown` names, then "and N more": "a, b, c and 12 more".
+std::string name_list(const std::vector<std::string>& names, std::size_t shown);
+
+// JSON forms: an exact number is its canonical fraction text ("-3/2"); an absent side is null.
+nlohmann::json exact_json(const Rational& value);
+nlohmann::json side_json(const model::Side& side);
+
+}  // namespace plumb::present::detail
