@@ -16,6 +16,8 @@
 #include <optional>
 #include <sstream>
 
+#include <unistd.h>
+
 namespace plumb::cli {
 namespace {
 
@@ -186,15 +188,16 @@ void print_json(const model::Model& model, const exact::CertifiedSolution& resul
   std::cout << out.dump(2) << "\n";
 }
 
-// Progress on stderr, at most every two seconds.
+// A live progress line on stderr, redrawn in place at most four times a second; only on a
+// terminal, so logs and pipes see nothing but warnings.
 std::function<void(const exact::Progress&)> progress_printer() {
   auto last = std::make_shared<std::chrono::steady_clock::time_point>(std::chrono::steady_clock::now());
   return [last](const exact::Progress& p) {
     auto now = std::chrono::steady_clock::now();
-    if (now - *last < std::chrono::seconds(2)) return;
+    if (now - *last < std::chrono::milliseconds(250)) return;
     *last = now;
-    std::fprintf(stderr, "  %s: %ld iterations, objective ~%.6g, infeasibility ~%.3g\n", p.phase.c_str(), p.iterations,
-                 p.objective, p.infeasibility);
+    std::fprintf(stderr, "\r\033[K  %-14s %8ld it  objective ~%-14.8g infeasibility ~%-9.3g %7.1f s", p.phase.c_str(),
+                 p.iterations, p.objective, p.infeasibility, p.elapsed_seconds);
   };
 }
 
@@ -206,8 +209,10 @@ int run_solve(const SolveCommandOptions& options) {
   exact::SolveOptions solve;
   solve.method = options.method == "exact" ? exact::Method::exact : exact::Method::hybrid;
   solve.budget = &budget;
-  if (!options.quiet) solve.progress = progress_printer();
+  bool live_progress = !options.quiet && isatty(STDERR_FILENO);
+  if (live_progress) solve.progress = progress_printer();
   exact::CertifiedSolution result = exact::certified_solve(model, solve);
+  if (live_progress) std::fprintf(stderr, "\r\033[K");
   for (const std::string& rejection : result.rejections)
     std::cerr << "plumb: BUG: " << rejection << "\n"
               << "plumb: please report this; the result below, if any, comes from the pure exact engine\n";
@@ -256,7 +261,7 @@ void add_solve(CLI::App& app, Action& action) {
       ->check(CLI::PositiveNumber);
   command->add_option("--method", options->method, "hybrid: float search, exact certification (default); exact: exact only")
       ->check(CLI::IsMember({"hybrid", "exact"}));
-  command->add_flag("--quiet", options->quiet, "No progress lines on stderr");
+  command->add_flag("--quiet", options->quiet, "No live progress line on stderr (it is shown only when stderr is a terminal)");
   command->callback([&action, options] { action = [options] { return run_solve(*options); }; });
 }
 
