@@ -3,6 +3,7 @@
 #include <openssl/evp.h>
 #include <zlib.h>
 
+#include <cstdint>
 #include <cstdio>
 #include <fstream>
 #include <iterator>
@@ -11,25 +12,33 @@
 namespace plumb::model::detail {
 namespace {
 
-std::string inflate_gzip(const std::string& stored, const std::string& path) {
+constexpr uInt buffer_bytes = 1 << 18;
+
+// Inflates every gzip member of `stored` in turn, handing each decompressed chunk to `sink`, and
+// returns the total size.  Throws InputError for corrupt or truncated data and as soon as the
+// total passes max_input_bytes, so a small bomb costs one bounded buffer, not its expansion.
+template <class Sink>
+std::size_t inflate_gzip(const std::string& stored, const std::string& path, Sink sink) {
   z_stream stream{};
   // 16 + MAX_WBITS: gzip wrapper only; concatenated members are handled below.
   if (inflateInit2(&stream, 16 + MAX_WBITS) != Z_OK) throw InputError({path}, "a gzip stream zlib cannot open", "a readable .gz file");
-  std::string out;
   stream.next_in = reinterpret_cast<Bytef*>(const_cast<char*>(stored.data()));
   stream.avail_in = static_cast<uInt>(stored.size());
-  char buffer[1 << 16];
+  std::unique_ptr<char[]> buffer(new char[buffer_bytes]);
+  std::size_t total = 0;
   int status = Z_OK;
   while (true) {
-    stream.next_out = reinterpret_cast<Bytef*>(buffer);
-    stream.avail_out = sizeof buffer;
+    stream.next_out = reinterpret_cast<Bytef*>(buffer.get());
+    stream.avail_out = buffer_bytes;
     status = inflate(&stream, Z_NO_FLUSH);
     if (status != Z_OK && status != Z_STREAM_END) break;
-    out.append(buffer, sizeof buffer - stream.avail_out);
-    if (out.size() > max_input_bytes) {
+    std::size_t produced = buffer_bytes - stream.avail_out;
+    total += produced;
+    if (total > max_input_bytes) {
       inflateEnd(&stream);
       throw InputError({path}, "more than 2 GiB after decompression", "a model of at most 2 GiB");
     }
+    sink(std::string_view(buffer.get(), produced));
     if (status == Z_STREAM_END) {
       if (stream.avail_in == 0) break;
       inflateReset(&stream);  // another gzip member follows
@@ -38,6 +47,25 @@ std::string inflate_gzip(const std::string& stored, const std::string& path) {
   inflateEnd(&stream);
   if (status != Z_STREAM_END)
     throw InputError({path}, "a truncated or corrupt gzip stream", "a complete .gz file");
+  return total;
+}
+
+// Two passes: the first only measures (refusing bombs and corrupt data without keeping anything),
+// the second fills a string reserved to the exact size, so peak memory is the model itself.
+std::string decompress(const std::string& stored, const std::string& path) {
+  // The last member's trailer states its size modulo 2^32: beyond the limit the file is either
+  // that large or corrupt, and is refused at once.  (A trailer that lies is caught by pass one.)
+  if (stored.size() >= 18) {
+    std::uint32_t stated = 0;
+    for (int k = 1; k <= 4; ++k) stated = stated << 8 | static_cast<unsigned char>(stored[stored.size() - k]);
+    if (stated > max_input_bytes)
+      throw InputError({path}, "a gzip file stating " + std::to_string(stated) + " bytes after decompression",
+                       "a model of at most 2 GiB");
+  }
+  std::size_t size = inflate_gzip(stored, path, [](std::string_view) {});
+  std::string out;
+  out.reserve(size);
+  inflate_gzip(stored, path, [&out](std::string_view chunk) { out.append(chunk); });
   return out;
 }
 
@@ -70,7 +98,7 @@ LoadedFile load_file(const std::string& path) {
   file.sha256 = sha256_hex(stored);
   file.compressed = stored.size() >= 2 && static_cast<unsigned char>(stored[0]) == 0x1f &&
                     static_cast<unsigned char>(stored[1]) == 0x8b;
-  file.text = file.compressed ? inflate_gzip(stored, path) : std::move(stored);
+  file.text = file.compressed ? decompress(stored, path) : std::move(stored);
   return file;
 }
 

@@ -1,0 +1,214 @@
+#include "hardening/fuzz_targets.hpp"
+
+#include "plumb/model/labels.hpp"
+#include "plumb/model/read.hpp"
+#include "plumb/numeric/rational.hpp"
+
+#include <zlib.h>
+
+#include <filesystem>
+#include <fstream>
+#include <map>
+#include <sstream>
+#include <unistd.h>
+
+namespace plumb::hardening {
+namespace {
+
+using model::Format;
+using model::InputError;
+using model::Model;
+using numeric::Rational;
+
+void require(bool condition, const std::string& what) {
+  if (!condition) throw FuzzFinding(what);
+}
+
+// What every model a reader accepts must satisfy, whatever the text was.
+void check_model_shape(const Model& m) {
+  require(m.matrix.rows() == m.row_count(), "matrix rows differ from the row list");
+  require(m.matrix.columns() == m.column_count(), "matrix columns differ from the column list");
+  require(static_cast<int>(m.objective.coefficients.size()) == m.column_count(),
+          "objective has not one coefficient per column");
+  for (int i = 0; i < m.row_count(); ++i)
+    require(m.find_row(m.rows[i].name) == i, "find_row does not find row " + m.rows[i].name);
+  for (int j = 0; j < m.column_count(); ++j)
+    require(m.find_column(m.columns[j].name) == j, "find_column does not find column " + m.columns[j].name);
+  std::size_t by_rows = 0;
+  for (int i = 0; i < m.row_count(); ++i) {
+    auto columns = m.matrix.row_columns(i);
+    auto positions = m.matrix.row_positions(i);
+    require(columns.size() == positions.size(), "row index and positions differ in length");
+    for (std::size_t k = 0; k < columns.size(); ++k) {
+      require(columns[k] >= 0 && columns[k] < m.column_count(), "row index names a column out of range");
+      require(k == 0 || columns[k - 1] < columns[k], "row index not strictly ascending");
+      require(m.matrix.value(positions[k]) != 0, "an explicit zero is stored");
+      require(m.matrix.at(i, columns[k]) == m.matrix.value(positions[k]), "row and column views disagree");
+    }
+    by_rows += columns.size();
+  }
+  std::size_t by_columns = 0;
+  for (int j = 0; j < m.column_count(); ++j) {
+    auto rows = m.matrix.column_rows(j);
+    require(rows.size() == m.matrix.column_values(j).size(), "column rows and values differ in length");
+    for (std::size_t k = 0; k < rows.size(); ++k) {
+      require(rows[k] >= 0 && rows[k] < m.row_count(), "column names a row out of range");
+      require(k == 0 || rows[k - 1] < rows[k], "column rows not strictly ascending");
+    }
+    by_columns += rows.size();
+  }
+  require(by_rows == m.matrix.nonzeros() && by_columns == m.matrix.nonzeros(),
+          "row and column views count different nonzeros");
+}
+
+model::ReadOptions options_for(Format format) {
+  model::ReadOptions options;
+  options.format = format;
+  options.find_labels_beside = false;
+  return options;
+}
+
+// The outcome of reading: a model, or the InputError message.
+struct Outcome {
+  std::optional<Model> model;
+  std::string error;
+};
+
+template <class Read>
+Outcome attempt(Read read) {
+  try {
+    return {read(), {}};
+  } catch (const InputError& e) {
+    return {std::nullopt, e.what()};
+  }
+}
+
+std::string gzip(std::string_view bytes) {
+  z_stream stream{};
+  if (deflateInit2(&stream, Z_BEST_SPEED, Z_DEFLATED, 16 + MAX_WBITS, 8, Z_DEFAULT_STRATEGY) != Z_OK)
+    throw std::runtime_error("deflateInit2 failed");
+  std::string out(deflateBound(&stream, bytes.size()), '\0');
+  stream.next_in = reinterpret_cast<Bytef*>(const_cast<char*>(bytes.data()));
+  stream.avail_in = static_cast<uInt>(bytes.size());
+  stream.next_out = reinterpret_cast<Bytef*>(out.data());
+  stream.avail_out = static_cast<uInt>(out.size());
+  int status = deflate(&stream, Z_FINISH);
+  out.resize(stream.total_out);
+  deflateEnd(&stream);
+  if (status != Z_STREAM_END) throw std::runtime_error("deflate did not finish");
+  return out;
+}
+
+// One scratch file per process, removed when the process ends normally.
+struct ScratchFile {
+  std::filesystem::path path = std::filesystem::temp_directory_path() /
+                               ("plumb-fuzz-" + std::to_string(getpid()) + ".mps");
+  ~ScratchFile() {
+    std::error_code ignored;
+    std::filesystem::remove(path, ignored);
+  }
+  void write(std::string_view bytes) const {
+    std::ofstream out(path, std::ios::binary | std::ios::trunc);
+    out.write(bytes.data(), static_cast<std::streamsize>(bytes.size()));
+    if (!out) throw std::runtime_error("cannot write " + path.string());
+  }
+};
+
+}  // namespace
+
+void fuzz_numbers(std::string_view input) {
+  using namespace numeric;
+  ParseFailure why;
+  auto decimal = parse_decimal(input, &why);
+  require(decimal || !why.reason.empty(), "parse_decimal refused without a reason");
+  auto number = parse_number(input, &why);
+  require(number || !why.reason.empty(), "parse_number refused without a reason");
+  if (decimal) require(number && *number == *decimal, "parse_number disagrees with parse_decimal");
+  if (number) {
+    std::string fraction = to_fraction(*number);
+    auto canonical = parse_canonical_fraction(fraction, fraction.size(), &why);
+    require(canonical && *canonical == *number, "to_fraction text does not read back canonically");
+    auto again = parse_number(fraction);
+    require(again && *again == *number, "to_fraction text does not read back through parse_number");
+    Decimal shown = to_decimal(*number);
+    auto read_back = parse_decimal(shown.text);
+    require(read_back.has_value(), "to_decimal text \"" + shown.text + "\" is not a decimal");
+    if (!shown.rounded) require(*read_back == *number, "to_decimal claims exact but is not");
+    static const Rational relative_tolerance = *parse_decimal("1e-11");  // 12 significant digits
+    require(abs(*read_back - *number) <= relative_tolerance * abs(*number),
+            "to_decimal is off by more than 1e-11 relative");
+  }
+  auto canonical = parse_canonical_fraction(input, 1000, &why);
+  if (canonical) require(to_fraction(*canonical) == input, "accepted a non-canonical fraction");
+}
+
+void fuzz_mps(std::string_view input) {
+  Outcome read = attempt([&] { return model::read_model_text(input, "fuzz.mps", options_for(Format::mps)); });
+  if (read.model) check_model_shape(*read.model);
+}
+
+void fuzz_mps_file(std::string_view input) {
+  if (input.empty()) return;
+  static const ScratchFile scratch;
+  // The first byte picks how the rest reaches the file: as raw bytes (a corrupt .gz, often),
+  // gzip-compressed in one member, in two members, or compressed with trailing bytes.
+  std::string_view body = input.substr(1);
+  switch (input[0] & 3) {
+    case 0: scratch.write(body); break;
+    case 1: scratch.write(gzip(body)); break;
+    case 2: scratch.write(gzip(body.substr(0, body.size() / 2)) + gzip(body.substr(body.size() / 2))); break;
+    default: scratch.write(gzip(body) + std::string(body)); break;
+  }
+  const std::string path = scratch.path.string();
+  Outcome from_file = attempt([&] { return model::read_model(path, options_for(Format::mps)); });
+  if (from_file.model) check_model_shape(*from_file.model);
+  if ((input[0] & 3) == 1 || (input[0] & 3) == 2) {  // compression must be invisible
+    Outcome from_text = attempt([&] { return model::read_model_text(body, path, options_for(Format::mps)); });
+    require(from_file.model.has_value() == from_text.model.has_value(), "gzip changed whether the model reads");
+    if (from_file.model) require(from_file.model->same_content(*from_text.model), "gzip changed the model read");
+    else require(from_file.error == from_text.error, "gzip changed the message: " + from_file.error);
+  }
+}
+
+void fuzz_native(std::string_view input) {
+  Outcome read = attempt([&] { return model::read_model_text(input, "fuzz.plumb", options_for(Format::plumb)); });
+  if (!read.model) return;
+  check_model_shape(*read.model);
+  std::ostringstream written;
+  model::write_plumb(*read.model, written);
+  Outcome again = attempt([&] { return model::read_model_text(written.str(), "rewritten.plumb", options_for(Format::plumb)); });
+  require(again.model.has_value(), "written native text does not read back: " + again.error);
+  require(again.model->same_content(*read.model), "native text does not round-trip");
+}
+
+void fuzz_labels(std::string_view input) {
+  // A small fixed model (invented) for the labels to name: two columns, two rows.
+  static const Model base = model::ModelBuilder("labels-target")
+                                .column("crude", Rational(3))
+                                .column("naphtha", Rational(-1), Rational(0), Rational(40))
+                                .row("benzene", {{"crude", Rational(1, 100)}, {"naphtha", Rational(2)}}, {}, Rational(5))
+                                .row("capacity", {{"crude", Rational(1)}, {"naphtha", Rational(1)}}, Rational(1), Rational(100))
+                                .build();
+  Model labelled = base;
+  try {
+    model::apply_labels_text(labelled, input, "fuzz.labels.csv");
+  } catch (const InputError&) {
+    return;
+  }
+  require(labelled.row_count() == base.row_count() && labelled.column_count() == base.column_count(),
+          "labels changed the model's size");
+  require(labelled.matrix == base.matrix && labelled.objective.coefficients == base.objective.coefficients,
+          "labels changed the model's numbers");
+  check_model_shape(labelled);
+}
+
+FuzzTarget fuzz_target(const std::string& name) {
+  static const std::map<std::string, FuzzTarget> targets{
+      {"numbers", fuzz_numbers}, {"mps", fuzz_mps},       {"mps_file", fuzz_mps_file},
+      {"native", fuzz_native},   {"labels", fuzz_labels},
+  };
+  auto found = targets.find(name);
+  return found == targets.end() ? nullptr : found->second;
+}
+
+}  // namespace plumb::hardening
