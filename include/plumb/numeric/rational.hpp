@@ -18,8 +18,8 @@ struct ParseFailure {
 };
 
 // Decimal text exactly as written: [+-]digits[.digits][(e|E)[+-]digits], ".5" and "1." included.
-// Never goes through double.  Exponents beyond +-max_decimal_exponent are refused, so a
-// hostile "1e999999999" cannot exhaust memory.
+// Never goes through double.  A value m * 10^e (m without trailing zeros) with e beyond
+// +-max_decimal_exponent is refused, so a hostile "1e999999999" cannot exhaust memory.
 constexpr long max_decimal_exponent = 100000;
 std::optional<Rational> parse_decimal(std::string_view text, ParseFailure* why = nullptr);
 
