@@ -59,7 +59,9 @@ std::string decompress(const std::string& stored, const std::string& path) {
     std::uint32_t stated = 0;
     for (int k = 1; k <= 4; ++k) stated = stated << 8 | static_cast<unsigned char>(stored[stored.size() - k]);
     if (stated > max_input_bytes)
-      throw InputError({path}, "a gzip file stating " + std::to_string(stated) + " bytes after decompression",
+      throw InputError({path},
+                       "a gzip trailer stating " + std::to_string(stated) +
+                           " bytes after decompression (more than 2 GiB, or a corrupt gzip stream)",
                        "a model of at most 2 GiB");
   }
   std::size_t size = inflate_gzip(stored, path, [](std::string_view) {});

@@ -14,6 +14,20 @@ Integer power_of_ten(long exponent) {
   return result;
 }
 
+// The rule of max_decimal_exponent: numerator and denominator in lowest terms at most
+// 10^max_decimal_exponent.  It bounds the value itself, not its text, so every accepted number
+// reads back from any exact rendering of it (decimal or p/q).
+bool within_limits(const Rational& value) {
+  static const Integer bound = power_of_ten(max_decimal_exponent);
+  return mpz_cmpabs(mpq_numref(value.backend().data()), bound.backend().data()) <= 0 &&
+         mpz_cmp(mpq_denref(value.backend().data()), bound.backend().data()) <= 0;
+}
+
+std::string limit_phrase() {
+  const std::string limit = std::to_string(max_decimal_exponent);
+  return "an exponent of at most " + limit + " (numerator and denominator in lowest terms at most 1e" + limit + ")";
+}
+
 std::optional<Rational> fail(ParseFailure* why, std::string reason) {
   if (why) why->reason = std::move(reason);
   return std::nullopt;
@@ -34,14 +48,10 @@ std::optional<Rational> parse_decimal(std::string_view text, ParseFailure* why) 
     while (i < text.size() && is_digit(text[i])) digits += text[i++], ++fraction_digits, any_digit = true;
   }
   if (!any_digit) return fail(why, "a number");
-  // The limit applies to the value's own exponent e in m * 10^e, m without trailing zeros, so
-  // that whatever is accepted can be written back in that form ("1000e99999" is 1e100002) and
-  // read again.  The written exponent can differ from e by at most the number of digits.
-  auto limit = [] {
-    return "an exponent of at most " + std::to_string(max_decimal_exponent) +
-           " either way (trailing zeros of the digits counting in it)";
-  };
-  const long written_limit = max_decimal_exponent + static_cast<long>(digits.size());
+  // A cheap bound on the written exponent first, so that no huge power of ten is ever built;
+  // the exact rule (within_limits) is checked on the value.  The decimal text of an accepted
+  // value can carry an exponent up to log2(10) times the limit, hence the factor 4.
+  const long written_limit = 4 * max_decimal_exponent + static_cast<long>(digits.size());
   long exponent = 0;
   if (i < text.size() && (text[i] == 'e' || text[i] == 'E')) {
     ++i;
@@ -50,20 +60,21 @@ std::optional<Rational> parse_decimal(std::string_view text, ParseFailure* why) 
     if (i >= text.size() || !is_digit(text[i])) return fail(why, "digits after the exponent mark");
     while (i < text.size() && is_digit(text[i])) {
       exponent = exponent * 10 + (text[i++] - '0');
-      if (exponent > written_limit) return fail(why, limit());
+      if (exponent > written_limit) return fail(why, limit_phrase());
     }
     if (exponent_negative) exponent = -exponent;
   }
   if (i != text.size()) return fail(why, "a number");
   std::size_t first = digits.find_first_not_of('0');
   if (first == std::string::npos) return Rational(0);
-  std::size_t last = digits.find_last_not_of('0');
-  long scale = exponent - fraction_digits + static_cast<long>(digits.size() - 1 - last);
-  if (scale > max_decimal_exponent || scale < -max_decimal_exponent) return fail(why, limit());
-  Integer mantissa(digits.substr(first, last - first + 1));
+  long significant = static_cast<long>(digits.size() - first);
+  long scale = exponent - fraction_digits;
+  if (significant + scale > max_decimal_exponent + 1) return fail(why, limit_phrase());  // |value| >= 10^(max+1)
+  Integer mantissa(digits.substr(first));
   if (negative) mantissa = -mantissa;
-  if (scale >= 0) return Rational(mantissa * power_of_ten(scale));
-  return Rational(mantissa, power_of_ten(-scale));
+  Rational value = scale >= 0 ? Rational(mantissa * power_of_ten(scale)) : Rational(mantissa, power_of_ten(-scale));
+  if (!within_limits(value)) return fail(why, limit_phrase());
+  return value;
 }
 
 std::optional<Rational> parse_number(std::string_view text, ParseFailure* why) {
@@ -74,7 +85,9 @@ std::optional<Rational> parse_number(std::string_view text, ParseFailure* why) {
   auto denominator = parse_decimal(text.substr(slash + 1), why);
   if (!denominator) return std::nullopt;
   if (*denominator == 0) return fail(why, "a non-zero denominator");
-  return Rational(*numerator / *denominator);
+  Rational value = *numerator / *denominator;
+  if (!within_limits(value)) return fail(why, limit_phrase());
+  return value;
 }
 
 std::string to_fraction(const Rational& value) {

@@ -1,5 +1,7 @@
 #include "hardening/fuzz_targets.hpp"
 
+#include "plumb/certificate/certificate.hpp"
+#include "plumb/check/check.hpp"
 #include "plumb/model/labels.hpp"
 #include "plumb/model/read.hpp"
 #include "plumb/numeric/rational.hpp"
@@ -9,6 +11,7 @@
 #include <filesystem>
 #include <fstream>
 #include <map>
+#include <optional>
 #include <sstream>
 #include <unistd.h>
 
@@ -147,7 +150,19 @@ void fuzz_numbers(std::string_view input) {
 
 void fuzz_mps(std::string_view input) {
   Outcome read = attempt([&] { return model::read_model_text(input, "fuzz.mps", options_for(Format::mps)); });
-  if (read.model) check_model_shape(*read.model);
+  if (!read.model) return;
+  check_model_shape(*read.model);
+  // Whatever the writer can state (free MPS has no blanks in names, for one) must read back.
+  std::ostringstream written;
+  try {
+    model::write_mps(*read.model, written);
+  } catch (const std::runtime_error& refused) {
+    require(std::string_view(refused.what()).starts_with("cannot write MPS: "), refused.what());
+    return;
+  }
+  Outcome again = attempt([&] { return model::read_model_text(written.str(), "rewritten.mps", options_for(Format::mps)); });
+  require(again.model.has_value(), "written MPS does not read back: " + again.error);
+  require(again.model->same_content(*read.model), "MPS does not round-trip");
 }
 
 void fuzz_mps_file(std::string_view input) {
@@ -205,10 +220,35 @@ void fuzz_labels(std::string_view input) {
   check_model_shape(labelled);
 }
 
+void fuzz_certificate(std::string_view input) {
+  // V. Chvatal, Linear Programming (1983), ch. 2, the first worked example, built in code (so no
+  // file hash to match): the certificates in tests/data/check/ are for it.
+  static const Model chvatal = model::ModelBuilder("CHVATAL21")
+                                   .maximise()
+                                   .column("x1", Rational(5)).column("x2", Rational(4)).column("x3", Rational(3))
+                                   .row("c1", {{"x1", Rational(2)}, {"x2", Rational(3)}, {"x3", Rational(1)}}, {}, Rational(5))
+                                   .row("c2", {{"x1", Rational(4)}, {"x2", Rational(1)}, {"x3", Rational(2)}}, {}, Rational(11))
+                                   .row("c3", {{"x1", Rational(3)}, {"x2", Rational(4)}, {"x3", Rational(2)}}, {}, Rational(8))
+                                   .build();
+  std::optional<certificate::Certificate> read;
+  try {
+    read = certificate::parse_certificate(input, "fuzz.certificate.json");
+  } catch (const InputError&) {
+    return;
+  }
+  check::Verdict verdict = check::verify(chvatal, *read);
+  require(verdict.valid ? !verdict.proven.empty() : !verdict.failure.empty(), "a verdict without its sentence");
+  // What the reader accepts, the writer writes back to text that reads as the same certificate.
+  std::string text = certificate::to_json_text(*read);
+  certificate::Certificate again = certificate::parse_certificate(text, "rewritten.certificate.json");
+  require(certificate::to_json_text(again) == text, "certificate text does not round-trip");
+  require(check::verify(chvatal, again).valid == verdict.valid, "rewriting changed the verdict");
+}
+
 FuzzTarget fuzz_target(const std::string& name) {
   static const std::map<std::string, FuzzTarget> targets{
       {"numbers", fuzz_numbers}, {"mps", fuzz_mps},       {"mps_file", fuzz_mps_file},
-      {"native", fuzz_native},   {"labels", fuzz_labels},
+      {"native", fuzz_native},   {"labels", fuzz_labels},   {"certificate", fuzz_certificate},
   };
   auto found = targets.find(name);
   return found == targets.end() ? nullptr : found->second;

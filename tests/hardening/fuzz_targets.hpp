@@ -19,6 +19,7 @@ void fuzz_mps(std::string_view input);
 void fuzz_mps_file(std::string_view input);  // through a file on disk, gzip included
 void fuzz_native(std::string_view input);
 void fuzz_labels(std::string_view input);
+void fuzz_certificate(std::string_view input);  // the strict reader, then check::verify
 
 // A target by the name used for its regression folder (tests/data/fuzz-regressions/NAME/).
 using FuzzTarget = void (*)(std::string_view);

@@ -18,8 +18,9 @@ struct ParseFailure {
 };
 
 // Decimal text exactly as written: [+-]digits[.digits][(e|E)[+-]digits], ".5" and "1." included.
-// Never goes through double.  A value m * 10^e (m without trailing zeros) with e beyond
-// +-max_decimal_exponent is refused, so a hostile "1e999999999" cannot exhaust memory.
+// Never goes through double.  A value whose numerator or denominator in lowest terms exceeds
+// 10^max_decimal_exponent is refused, so a hostile "1e999999999" cannot exhaust memory and every
+// accepted value reads back from any exact rendering of it (this rule holds for parse_number too).
 constexpr long max_decimal_exponent = 100000;
 std::optional<Rational> parse_decimal(std::string_view text, ParseFailure* why = nullptr);
 
