@@ -69,15 +69,21 @@ class PlumbProcess {
     }
     return status_ && WIFEXITED(*status_) ? WEXITSTATUS(*status_) : -1;
   }
-  // Waits until stderr contains `text` (or the process ends); true when it appeared.
-  bool wait_for_stderr(const std::string& text, std::chrono::seconds patience = 300s) {
+  // Waits until the process has a handler for `number` (its SigCgt mask in /proc), so a signal
+  // sent then reaches plumb's own handling; false when it ended first or did not within patience.
+  bool wait_until_catching(int number, std::chrono::seconds patience = 300s) {
     auto give_up = std::chrono::steady_clock::now() + patience;
     while (std::chrono::steady_clock::now() < give_up) {
-      if (stderr_text().find(text) != std::string::npos) return true;
-      int status = 0;
-      if (!status_ && waitpid(pid_, &status, WNOHANG) == pid_) status_ = status;
-      if (status_) return stderr_text().find(text) != std::string::npos;
-      std::this_thread::sleep_for(20ms);
+      std::ifstream status("/proc/" + std::to_string(pid_) + "/status");
+      std::string line;
+      while (std::getline(status, line))
+        if (line.starts_with("SigCgt:") && (std::stoull(line.substr(7), nullptr, 16) >> (number - 1) & 1)) return true;
+      int exit_status = 0;
+      if (waitpid(pid_, &exit_status, WNOHANG) == pid_) {
+        status_ = exit_status;
+        return false;
+      }
+      std::this_thread::sleep_for(5ms);
     }
     return false;
   }
@@ -136,10 +142,11 @@ TEST_F(NetlibSolveLimits, TimeAndMemoryLimitsExitThreeSayHowFarAndWriteNoCertifi
   }
 }
 
-// SIGINT and SIGTERM once the solve is under way (its first progress line is on stderr).
+// SIGINT and SIGTERM once the solve is under way: plumb catches them, and a moment later.
 void expect_signal_stops_solve(const fs::path& folder, const fs::path& model, const fs::path& certificate, int number) {
   PlumbProcess run(folder, {"solve", model.string(), "--method", "exact", "--certificate", certificate.string()});
-  ASSERT_TRUE(run.wait_for_stderr(" iterations")) << "no progress line: " << run.stderr_text();
+  ASSERT_TRUE(run.wait_until_catching(number)) << "never caught the signal: " << run.stderr_text();
+  std::this_thread::sleep_for(500ms);  // into the solve proper
   run.signal(number);
   EXPECT_EQ(run.wait(), 3) << run.stderr_text();
   EXPECT_NE(run.stderr_text().find("interrupted"), std::string::npos) << run.stderr_text();
