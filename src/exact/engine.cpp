@@ -90,20 +90,24 @@ void Engine::rest_nonbasic(int k, VarStatus wanted) {
   else value_[k] = 0;
 }
 
+// Column k of [A | -I]: a model column, or the logical of row k - n.
+SparseColumn Engine::constraint_column(int k) const {
+  SparseColumn column;
+  if (k >= n_) {
+    column.rows = {k - n_};
+    column.values = {Rational(-1)};
+    return column;
+  }
+  auto rows = model_.matrix.column_rows(k);
+  auto values = model_.matrix.column_values(k);
+  column.rows.assign(rows.begin(), rows.end());
+  column.values.assign(values.begin(), values.end());
+  return column;
+}
+
 void Engine::refactor() {
   std::vector<SparseColumn> columns(static_cast<std::size_t>(m_));
-  for (int p = 0; p < m_; ++p) {
-    int k = head_[p];
-    if (k >= n_) {
-      columns[p].rows = {k - n_};
-      columns[p].values = {Rational(-1)};
-      continue;
-    }
-    auto rows = model_.matrix.column_rows(k);
-    auto values = model_.matrix.column_values(k);
-    columns[p].rows.assign(rows.begin(), rows.end());
-    columns[p].values.assign(values.begin(), values.end());
-  }
+  for (int p = 0; p < m_; ++p) columns[p] = constraint_column(head_[p]);
   factor_.factorize(m_, columns);
   if (!factor_.nonsingular()) throw std::logic_error("exact simplex: basis became singular");
 }
@@ -113,18 +117,7 @@ bool Engine::install_basis(std::vector<int> basic_variables) {
   bool repaired = static_cast<int>(basic_variables.size()) != m_;
   for (int attempt = 0;; ++attempt) {
     std::vector<SparseColumn> columns(basic_variables.size());
-    for (std::size_t p = 0; p < basic_variables.size(); ++p) {
-      int k = basic_variables[p];
-      if (k >= n_) {
-        columns[p].rows = {k - n_};
-        columns[p].values = {Rational(-1)};
-        continue;
-      }
-      auto rows = model_.matrix.column_rows(k);
-      auto values = model_.matrix.column_values(k);
-      columns[p].rows.assign(rows.begin(), rows.end());
-      columns[p].values.assign(values.begin(), values.end());
-    }
+    for (std::size_t p = 0; p < basic_variables.size(); ++p) columns[p] = constraint_column(basic_variables[p]);
     factor_.factorize(m_, columns);
     if (factor_.nonsingular() && static_cast<int>(basic_variables.size()) == m_) break;
     if (attempt > 2) throw std::logic_error("exact simplex: basis repair did not converge");

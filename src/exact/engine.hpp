@@ -57,6 +57,7 @@ class Engine {
   bool infeasible_basis() const;
   void scatter_column(int k, SparseVector& target) const;
   void rest_nonbasic(int k, VarStatus wanted);
+  SparseColumn constraint_column(int k) const;
   void refactor();
   bool install_basis(std::vector<int> basic_variables);
   void compute_basic_values();
