@@ -4,14 +4,17 @@
 #include "plumb/model/error.hpp"
 #include "strict_json.hpp"
 
-#include <filesystem>
-#include <fstream>
+#include <algorithm>
 #include <limits>
 #include <stdexcept>
 
 namespace plumb::certificate {
 namespace {
 
+using detail::count;
+using detail::describe;
+using detail::required;
+using detail::SchemaError;
 using Json = nlohmann::ordered_json;
 
 constexpr const char* part_names[] = {"objective", "x", "y", "ray"};
@@ -50,28 +53,6 @@ void write_values(std::string& out, const char* key, const NamedValues& values) 
   out += first ? "}" : "\n  }";
 }
 
-// A refusal found after parsing: `pointer` leads back to the line and column.
-struct SchemaError {
-  std::string pointer;
-  std::string found;
-  std::string expected;
-};
-
-std::string describe(const Json& value) {
-  switch (value.type()) {
-    case Json::value_t::object: return "an object";
-    case Json::value_t::array: return "an array";
-    case Json::value_t::string: {
-      const auto& text = value.get_ref<const std::string&>();
-      if (text.size() <= 40) return "the string " + value.dump();
-      return "the string " + Json(text.substr(0, 24)).dump() + "... (" + std::to_string(text.size()) + " characters)";
-    }
-    case Json::value_t::boolean: return std::string("the value ") + (value.get<bool>() ? "true" : "false");
-    case Json::value_t::null: return "null";
-    default: return "the number " + value.dump();
-  }
-}
-
 class Reader {
  public:
   Reader(const ReadLimits& limits) : limits_(limits) {}
@@ -103,25 +84,12 @@ class Reader {
     if (parts.y) c.y = values(root.at("y"), "/y");
     if (parts.ray) c.ray = values(root.at("ray"), "/ray");
     for (const auto& [key, value] : root.items()) {
-      if (!is_schema_key(key)) c.extra[key] = nlohmann::json(value);
+      if (!is_schema_key(key)) c.extra[key] = value;
     }
     return c;
   }
 
  private:
-  static const Json& required(const Json& object, const std::string& pointer, const char* key, const char* what) {
-    auto it = object.find(key);
-    if (it == object.end()) throw SchemaError{pointer, "no \"" + std::string(key) + "\"", what};
-    return *it;
-  }
-
-  static long count(const Json& value, const std::string& pointer) {
-    if (!value.is_number_integer() || value.get<long long>() < 0 ||
-        value.get<long long>() > std::numeric_limits<long>::max())
-      throw SchemaError{pointer, describe(value), "a whole number of at least 0"};
-    return static_cast<long>(value.get<long long>());
-  }
-
   static std::string text(const Json& value, const std::string& pointer) {
     if (!value.is_string()) throw SchemaError{pointer, describe(value), "a JSON string"};
     return value.get<std::string>();
@@ -210,7 +178,11 @@ std::string to_json_text(const Certificate& c) {
   if (parts.x) write_values(out, "x", c.x);
   if (parts.y) write_values(out, "y", c.y);
   if (parts.ray) write_values(out, "ray", c.ray);
-  for (const auto& [key, value] : c.extra.items()) {
+  std::vector<std::string> extra_keys;
+  for (const auto& item : c.extra.items()) extra_keys.push_back(item.key());
+  std::sort(extra_keys.begin(), extra_keys.end());
+  for (const std::string& key : extra_keys) {
+    const Json& value = c.extra.at(key);
     if (is_schema_key(key))
       throw std::invalid_argument("certificate extra key \"" + key + "\" would hide a schema key");
     std::string nested = value.dump(2);
@@ -226,30 +198,11 @@ Certificate parse_certificate(std::string_view text, const std::string& file, co
   if (text.size() > limits.max_bytes)
     throw model::InputError({file}, std::to_string(text.size()) + " bytes",
                             "a certificate of at most " + std::to_string(limits.max_bytes) + " bytes");
-  Json root = detail::parse_strict_json(text, file, limits.max_depth);
-  try {
-    return Reader(limits).read(root);
-  } catch (const SchemaError& error) {
-    throw model::InputError(detail::locate(text, file, error.pointer), error.found, error.expected);
-  }
+  return detail::read_document(text, file, limits.max_depth, [&](const Json& root) { return Reader(limits).read(root); });
 }
 
 Certificate read_certificate(const std::string& path, const ReadLimits& limits) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in || std::filesystem::is_directory(path))
-    throw model::InputError({path}, "a file that cannot be opened", "a readable certificate file");
-  // Read in chunks rather than by the reported size, so pipes work and a file growing meanwhile
-  // still stops at the limit.
-  std::string text;
-  char buffer[1 << 16];
-  while (in.read(buffer, sizeof buffer) || in.gcount() > 0) {
-    text.append(buffer, static_cast<std::size_t>(in.gcount()));
-    if (text.size() > limits.max_bytes)
-      throw model::InputError({path}, "more than " + std::to_string(limits.max_bytes) + " bytes",
-                              "a certificate of at most " + std::to_string(limits.max_bytes) + " bytes");
-  }
-  if (in.bad()) throw model::InputError({path}, "a read error", "a readable certificate file");
-  return parse_certificate(text, path, limits);
+  return parse_certificate(detail::read_limited_file(path, limits.max_bytes, "certificate"), path, limits);
 }
 
 }  // namespace plumb::certificate

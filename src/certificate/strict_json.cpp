@@ -4,6 +4,8 @@
 
 #include <algorithm>
 #include <cstddef>
+#include <filesystem>
+#include <fstream>
 #include <iterator>
 #include <limits>
 #include <optional>
@@ -208,6 +210,49 @@ model::Location locate(std::string_view text, const std::string& file, const std
   CountingIterator first{text.data(), &consumed}, last{text.data() + text.size(), &consumed};
   Json::sax_parse(first, last, &handler);
   return location_of(text, file, handler.target_index().value_or(0));
+}
+
+std::string describe(const Json& value) {
+  switch (value.type()) {
+    case Json::value_t::object: return "an object";
+    case Json::value_t::array: return "an array";
+    case Json::value_t::string: {
+      const auto& text = value.get_ref<const std::string&>();
+      if (text.size() <= 40) return "the string " + value.dump();
+      return "the string " + Json(text.substr(0, 24)).dump() + "... (" + std::to_string(text.size()) + " characters)";
+    }
+    case Json::value_t::boolean: return std::string("the value ") + (value.get<bool>() ? "true" : "false");
+    case Json::value_t::null: return "null";
+    default: return "the number " + value.dump();
+  }
+}
+
+const Json& required(const Json& object, const std::string& pointer, const std::string& key, const std::string& what) {
+  auto it = object.find(key);
+  if (it == object.end()) throw SchemaError{pointer, "no \"" + key + "\"", what};
+  return *it;
+}
+
+long count(const Json& value, const std::string& pointer) {
+  if (!value.is_number_integer() || value.get<long long>() < 0 ||
+      value.get<long long>() > std::numeric_limits<long>::max())
+    throw SchemaError{pointer, describe(value), "a whole number of at least 0"};
+  return static_cast<long>(value.get<long long>());
+}
+
+std::string read_limited_file(const std::string& path, std::size_t max_bytes, const std::string& what) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in || std::filesystem::is_directory(path))
+    throw model::InputError({path}, "a file that cannot be opened", "a readable " + what + " file");
+  const std::string too_long = "a " + what + " of at most " + std::to_string(max_bytes) + " bytes";
+  std::string text;
+  char buffer[1 << 16];
+  while (in.read(buffer, sizeof buffer) || in.gcount() > 0) {
+    text.append(buffer, static_cast<std::size_t>(in.gcount()));
+    if (text.size() > max_bytes) throw model::InputError({path}, "more than " + std::to_string(max_bytes) + " bytes", too_long);
+  }
+  if (in.bad()) throw model::InputError({path}, "a read error", "a readable " + what + " file");
+  return text;
 }
 
 }  // namespace plumb::certificate::detail

@@ -1,5 +1,6 @@
 #include "hardening/fuzz_targets.hpp"
 
+#include "plumb/certificate/basis.hpp"
 #include "plumb/certificate/certificate.hpp"
 #include "plumb/check/check.hpp"
 #include "plumb/model/labels.hpp"
@@ -8,6 +9,7 @@
 
 #include <zlib.h>
 
+#include <algorithm>
 #include <filesystem>
 #include <fstream>
 #include <map>
@@ -117,6 +119,20 @@ struct ScratchFile {
   }
 };
 
+// V. Chvatal, Linear Programming (1983), ch. 2, the first worked example, built in code (so no
+// file hash to match): the certificates in tests/data/check/ and the bases in tests/data/solve/
+// are for it.
+const Model& chvatal() {
+  static const Model model = model::ModelBuilder("CHVATAL21")
+                                 .maximise()
+                                 .column("x1", Rational(5)).column("x2", Rational(4)).column("x3", Rational(3))
+                                 .row("c1", {{"x1", Rational(2)}, {"x2", Rational(3)}, {"x3", Rational(1)}}, {}, Rational(5))
+                                 .row("c2", {{"x1", Rational(4)}, {"x2", Rational(1)}, {"x3", Rational(2)}}, {}, Rational(11))
+                                 .row("c3", {{"x1", Rational(3)}, {"x2", Rational(4)}, {"x3", Rational(2)}}, {}, Rational(8))
+                                 .build();
+  return model;
+}
+
 }  // namespace
 
 void fuzz_numbers(std::string_view input) {
@@ -221,34 +237,50 @@ void fuzz_labels(std::string_view input) {
 }
 
 void fuzz_certificate(std::string_view input) {
-  // V. Chvatal, Linear Programming (1983), ch. 2, the first worked example, built in code (so no
-  // file hash to match): the certificates in tests/data/check/ are for it.
-  static const Model chvatal = model::ModelBuilder("CHVATAL21")
-                                   .maximise()
-                                   .column("x1", Rational(5)).column("x2", Rational(4)).column("x3", Rational(3))
-                                   .row("c1", {{"x1", Rational(2)}, {"x2", Rational(3)}, {"x3", Rational(1)}}, {}, Rational(5))
-                                   .row("c2", {{"x1", Rational(4)}, {"x2", Rational(1)}, {"x3", Rational(2)}}, {}, Rational(11))
-                                   .row("c3", {{"x1", Rational(3)}, {"x2", Rational(4)}, {"x3", Rational(2)}}, {}, Rational(8))
-                                   .build();
+  const Model& model = chvatal();
   std::optional<certificate::Certificate> read;
   try {
     read = certificate::parse_certificate(input, "fuzz.certificate.json");
   } catch (const InputError&) {
     return;
   }
-  check::Verdict verdict = check::verify(chvatal, *read);
+  check::Verdict verdict = check::verify(model, *read);
   require(verdict.valid ? !verdict.proven.empty() : !verdict.failure.empty(), "a verdict without its sentence");
   // What the reader accepts, the writer writes back to text that reads as the same certificate.
   std::string text = certificate::to_json_text(*read);
   certificate::Certificate again = certificate::parse_certificate(text, "rewritten.certificate.json");
   require(certificate::to_json_text(again) == text, "certificate text does not round-trip");
-  require(check::verify(chvatal, again).valid == verdict.valid, "rewriting changed the verdict");
+  require(check::verify(model, again).valid == verdict.valid, "rewriting changed the verdict");
+}
+
+void fuzz_basis(std::string_view input) {
+  std::optional<certificate::BasisFile> read;
+  try {
+    read = certificate::parse_basis(input, "fuzz.basis.json", chvatal());
+  } catch (const InputError&) {
+    return;
+  }
+  const Model& m = chvatal();
+  require(read->basis.columns.size() == static_cast<std::size_t>(m.column_count()) &&
+              read->basis.rows.size() == static_cast<std::size_t>(m.row_count()),
+          "a read basis without one status per column and row");
+  long basic = 0;
+  for (const auto* statuses : {&read->basis.columns, &read->basis.rows})
+    basic += std::count(statuses->begin(), statuses->end(), simplex::VarStatus::basic);
+  require(basic == read->basic_count, "basic_count differs from the basic statuses");
+  // What the reader accepts, the writer writes back to a file that reads as the same basis.
+  std::string text = certificate::to_basis_text(m, read->basis);
+  certificate::BasisFile again = certificate::parse_basis(text, "rewritten.basis.json", m);
+  require(again.basis.columns == read->basis.columns && again.basis.rows == read->basis.rows,
+          "basis file does not round-trip");
+  require(certificate::to_basis_text(m, again.basis) == text, "basis text does not round-trip");
 }
 
 FuzzTarget fuzz_target(const std::string& name) {
   static const std::map<std::string, FuzzTarget> targets{
       {"numbers", fuzz_numbers}, {"mps", fuzz_mps},       {"mps_file", fuzz_mps_file},
       {"native", fuzz_native},   {"labels", fuzz_labels},   {"certificate", fuzz_certificate},
+      {"basis", fuzz_basis},
   };
   auto found = targets.find(name);
   return found == targets.end() ? nullptr : found->second;

@@ -20,6 +20,7 @@ void fuzz_mps_file(std::string_view input);  // through a file on disk, gzip inc
 void fuzz_native(std::string_view input);
 void fuzz_labels(std::string_view input);
 void fuzz_certificate(std::string_view input);  // the strict reader, then check::verify
+void fuzz_basis(std::string_view input);        // the basis-file reader, then a written round trip
 
 // A target by the name used for its regression folder (tests/data/fuzz-regressions/NAME/).
 using FuzzTarget = void (*)(std::string_view);

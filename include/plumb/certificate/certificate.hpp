@@ -44,7 +44,9 @@ struct Certificate {
   NamedValues x;                      // optimal, unbounded, feasible
   NamedValues y;                      // optimal: row multipliers; infeasible: Farkas multipliers
   NamedValues ray;                    // unbounded only
-  nlohmann::json extra = nlohmann::json::object();  // further keys (e.g. "basis"); checkers ignore them
+  // Further keys (e.g. "basis"), written last in sorted order, their own members in the order held;
+  // checkers ignore them.
+  nlohmann::ordered_json extra = nlohmann::ordered_json::object();
 };
 
 // Which of "objective", "x", "y", "ray" a certificate of this status carries.
