@@ -2,12 +2,6 @@
 
 namespace plumb::check::detail {
 
-std::string amount(const Rational& value) {
-  std::string exact = numeric::to_fraction(value);
-  if (boost::multiprecision::denominator(value) == 1) return exact;
-  return exact + " (" + numeric::to_display(value, 6) + ")";
-}
-
 std::string shown_name(const std::string& name) {
   bool plain = !name.empty() && name.find_first_of(" \t\"") == std::string::npos;
   return plain ? name : "\"" + name + "\"";

@@ -17,8 +17,10 @@ struct Failure {
   std::string text;
 };
 
-// "87", or "869/10 (86.9)", or "12345/7 (~1763.57)": exact fraction, then decimal when not whole.
-std::string amount(const Rational& value);
+// An amount in a verdict, in the form every text rendering shares (numeric::exact_and_decimal):
+// "87", "869/10 (86.9)", "12345/7 (~1763.57142857)", or "~5501.84588831" for a fraction too long
+// to read (the certificate holds it exactly).
+inline std::string amount(const Rational& value) { return numeric::exact_and_decimal(value); }
 
 // The name as written, quoted when blanks or quotes would make it ambiguous in a sentence.
 std::string shown_name(const std::string& name);

@@ -3,6 +3,7 @@
 
 #include "plumb/certificate/certificate.hpp"
 #include "plumb/check/check.hpp"
+#include "plumb/present/caution.hpp"
 
 #include <nlohmann/json.hpp>
 
@@ -11,10 +12,6 @@
 
 namespace plumb::cli {
 namespace {
-
-constexpr const char* caution =
-    "plumb verifies the mathematics of the model as written; whether the model captures the law or the "
-    "specification is for qualified people under local codes.";
 
 struct CheckOptions {
   ModelOptions model;
@@ -32,11 +29,11 @@ int run_check(const CheckOptions& options) {
     out["certificate"] = options.certificate;
     out["valid"] = verdict.valid;
     out["status"] = certificate::to_string(c.status);
-    if (verdict.valid) out["proven"] = verdict.proven, out["caution"] = caution;
+    if (verdict.valid) out["proven"] = verdict.proven, out["caution"] = present::caution_line;
     else out["failure"] = verdict.failure;
     std::cout << out.dump(2) << "\n";
   } else if (verdict.valid) {
-    std::cout << "valid: " << verdict.proven << "\n" << caution << "\n";
+    std::cout << "valid: " << verdict.proven << "\n" << present::caution_line << "\n";
   } else {
     std::cout << "invalid " << certificate::to_string(c.status) << " certificate: " << verdict.failure << "\n";
   }

@@ -3,9 +3,11 @@
 #include "plumb/exact/solve.hpp"
 
 #include "engine.hpp"
+#include "plumb/certificate/basis.hpp"
 #include "plumb/simplex/float_simplex.hpp"
 
 #include <chrono>
+#include <limits>
 
 namespace plumb::exact {
 namespace {
@@ -17,6 +19,11 @@ double seconds_since(std::chrono::steady_clock::time_point start) {
 // Runs the exact engine from the given basis (or from the logical basis when null).
 Solution run_exact(const model::Model& model, const SolveOptions& options, const simplex::Basis* start) {
   auto clock = std::chrono::steady_clock::now();
+  if (options.progress) {  // factorizing the start can take a while before the first pivot
+    double nothing_yet = std::numeric_limits<double>::quiet_NaN();
+    options.progress(Progress{start ? "exact certify" : "exact start", 0, nothing_yet, nothing_yet,
+                              options.budget ? options.budget->elapsed_seconds() : 0});
+  }
   detail::Engine engine(model, options.budget, &options.progress);
   bool repaired = false;
   if (start) repaired = engine.start_from(*start);
@@ -55,8 +62,9 @@ Solution solve(const model::Model& model, const SolveOptions& options) {
   simplex::FloatOptions search;
   search.budget = options.budget;
   if (options.progress) {
-    search.progress = [&options](const simplex::FloatProgress& p) {
-      options.progress(Progress{"float " + p.phase, p.iterations, p.objective, p.infeasibility, 0});
+    search.progress = [&options, clock](const simplex::FloatProgress& p) {
+      double elapsed = options.budget ? options.budget->elapsed_seconds() : seconds_since(clock);
+      options.progress(Progress{"float " + p.phase, p.iterations, p.objective, p.infeasibility, elapsed});
     };
   }
   simplex::FloatResult found = simplex::solve_float(model, search);
@@ -101,6 +109,8 @@ certificate::Certificate make_certificate(const model::Model& model, const Solut
     case Outcome::stopped:
       throw std::logic_error("make_certificate: a stopped solve proves nothing");
   }
+  // For warm starts and readers; the checker ignores it (docs/certificates.md, extra keys).
+  if (!solution.basis.empty()) proof.extra["basis"] = certificate::basis_json(model, solution.basis);
   return proof;
 }
 

@@ -173,6 +173,14 @@ std::string to_display(const Rational& value, int significant) {
   return decimal.rounded ? "~" + decimal.text : decimal.text;
 }
 
+std::string exact_and_decimal(const Rational& value) {
+  std::string exact = to_fraction(value);
+  Decimal decimal = to_decimal(value);
+  if (exact.size() > readable_fraction_length) return "~" + decimal.text;
+  if (decimal.text == exact) return exact;
+  return exact + " (" + (decimal.rounded ? "~" : "") + decimal.text + ")";
+}
+
 double to_double(const Rational& value) { return mpq_get_d(value.backend().data()); }
 
 }  // namespace plumb::numeric

@@ -1,13 +1,19 @@
 #include "format.hpp"
+#include "plumb/present/caution.hpp"
 
 #include <algorithm>
 #include <ostream>
 
+namespace plumb::present {
+
+const char* const caution_line =
+    "plumb verifies the mathematics of the model as written; whether the model captures the law or the "
+    "specification is for qualified people under local codes.";
+
+}  // namespace plumb::present
+
 namespace plumb::present::detail {
 namespace {
-
-// Fractions longer than this are hard to read; the decimal alone is shown instead.
-constexpr std::size_t readable_fraction_length = 24;
 
 Rational power_of_ten(long exponent) {
   numeric::Integer power;
@@ -57,14 +63,6 @@ void write_heading(std::ostream& out, const std::string& heading) {
   out << "\n" << heading << "\n";
 }
 
-std::string exact_and_decimal(const Rational& value) {
-  std::string exact = numeric::to_fraction(value);
-  numeric::Decimal decimal = numeric::to_decimal(value);
-  if (exact.size() > readable_fraction_length) return "~" + decimal.text;
-  if (decimal.text == exact) return exact;
-  return exact + " (" + (decimal.rounded ? "~" : "") + decimal.text + ")";
-}
-
 std::string scientific(const Rational& value, int significant) {
   if (value == 0) return "0";
   Rational magnitude = abs(value);
@@ -79,9 +77,21 @@ std::string percent(const Rational& fraction) {
   return numeric::to_display(fraction * 100, 3) + " %";
 }
 
+std::string constant_rule_text(const model::Source& source) {
+  if (source.format == "plumb" || source.format == "built") return "stated in the model";
+  return source.constant_rule == model::ObjectiveConstantRule::negated_rhs
+             ? "an RHS entry on the objective row counts negated (the default)"
+             : "an RHS entry on the objective row is ignored (--ignore-objective-rhs)";
+}
+
+int integer_columns(const model::Model& model) {
+  return static_cast<int>(std::count_if(model.columns.begin(), model.columns.end(),
+                                        [](const model::Column& c) { return c.integer; }));
+}
+
 std::string side_text(const model::Side& side, bool is_lower) {
   if (!side) return is_lower ? "-inf" : "+inf";
-  return exact_and_decimal(*side);
+  return numeric::exact_and_decimal(*side);
 }
 
 std::string count_of(std::size_t count, const std::string& singular, const std::string& plural) {

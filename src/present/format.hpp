@@ -33,15 +33,17 @@ class Table {
 // A heading line and nothing else: sections of the text renderings start with it.
 void write_heading(std::ostream& out, const std::string& heading);
 
-// The exact value, then its decimal when that says something more: "42", "1/3 (~0.333333333333)",
-// "1/8 (0.125)".  Fractions too long to read are shown as the decimal alone, marked "~".
-std::string exact_and_decimal(const Rational& value);
-
 // Scientific form for magnitudes and ratios: "1e+8", "~2.5e-3", "3e+0".
 std::string scientific(const Rational& value, int significant = 3);
 
 // A percentage with three significant digits: "9.62 %", "~0.0413 %".
 std::string percent(const Rational& fraction);
+
+// Where the objective constant came from: stated in the model, or the MPS rule that made it.
+std::string constant_rule_text(const model::Source& source);
+
+// How many columns carry an integer marker (plumb solves and analyses the LP relaxation).
+int integer_columns(const model::Model& model);
 
 // A side or bound: the exact value, or "-inf"/"+inf" when it is absent.
 std::string side_text(const model::Side& side, bool is_lower);

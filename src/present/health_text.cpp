@@ -7,14 +7,10 @@
 
 namespace plumb::present {
 
-const char* const caution_line =
-    "plumb checks the mathematics of the model as written; whether it captures the law or the "
-    "specification is for qualified people under local codes.";
-
 namespace {
 
 using detail::count_of;
-using detail::exact_and_decimal;
+using numeric::exact_and_decimal;
 using detail::name_list;
 using detail::Table;
 using health::HealthReport;
@@ -27,13 +23,6 @@ std::string format_name(const std::string& format) {
   if (format == "plumb") return "plumb native";
   if (format == "built") return "built in code";
   return format.empty() ? "unknown" : format;
-}
-
-std::string constant_rule_text(const HealthReport& report) {
-  if (report.source.format == "plumb" || report.source.format == "built") return "stated in the model";
-  return report.source.constant_rule == model::ObjectiveConstantRule::negated_rhs
-             ? "an RHS entry on the objective row counts negated (the default)"
-             : "an RHS entry on the objective row is ignored (--ignore-objective-rhs)";
 }
 
 std::string place_text(NumberKind kind, const health::Place& at) {
@@ -96,7 +85,7 @@ void write_identity(const HealthReport& r, std::ostream& out) {
   table.add({"sha-256", r.source.sha256.empty() ? "(none)" : r.source.sha256});
   table.add({"labels", r.source.labels_path.empty() ? "none" : r.source.labels_path});
   table.add({"objective", std::string(r.sense == model::Sense::minimise ? "minimise " : "maximise ") + r.objective_name});
-  table.add({"constant", exact_and_decimal(r.objective_constant) + ", " + constant_rule_text(r)});
+  table.add({"constant", exact_and_decimal(r.objective_constant) + ", " + detail::constant_rule_text(r.source)});
   table.write(out);
 }
 

@@ -1,6 +1,7 @@
 #include "plumb/run/budget.hpp"
 
 #include <cstdio>
+#include <sys/resource.h>
 #include <unistd.h>
 
 namespace plumb::run {
@@ -44,6 +45,12 @@ std::size_t resident_mib() {
   std::fclose(statm);
   if (read != 2) return 0;
   return pages_resident * static_cast<std::size_t>(sysconf(_SC_PAGESIZE)) >> 20;
+}
+
+double peak_resident_mib() {
+  rusage usage{};
+  if (getrusage(RUSAGE_SELF, &usage) != 0) return 0;
+  return static_cast<double>(usage.ru_maxrss) / 1024;  // KiB on Linux
 }
 
 }  // namespace plumb::run

@@ -1,5 +1,8 @@
 // plumb solve end to end: exit statuses, what reaches stdout, certificates written and checked.
+#include "support/run.hpp"
+
 #include <gtest/gtest.h>
+#include <nlohmann/json.hpp>
 
 #include <cstdio>
 #include <filesystem>
@@ -63,11 +66,99 @@ TEST_F(SolveCommand, OptimalPrintsExactObjectiveLabelsAndWritesACheckedCertifica
 }
 
 TEST_F(SolveCommand, SameInputGivesByteIdenticalCertificates) {
-  std::string first = scratch("one.json"), second = scratch("two.json");
+  std::string first = scratch("one.json"), second = scratch("two.json"), exact = scratch("exact.json");
   plumb("solve corpus/summer-blend.mps --quiet --certificate '" + first + "'");
-  plumb("solve corpus/summer-blend.mps --quiet --method exact --certificate '" + second + "'");
+  plumb("solve corpus/summer-blend.mps --quiet --certificate '" + second + "'");
+  plumb("solve corpus/summer-blend.mps --quiet --method exact --certificate '" + exact + "'");
   EXPECT_FALSE(slurp(first).empty());
   EXPECT_EQ(slurp(first), slurp(second));
+  // The final basis may differ between the routes; what the certificate proves may not.
+  auto proof = [](std::string text) {
+    auto json = nlohmann::ordered_json::parse(text);
+    json.erase("basis");
+    return json.dump();
+  };
+  EXPECT_EQ(proof(slurp(first)), proof(slurp(exact)));
+}
+
+// The objective's decimal in solve's text is the one the checker's sentence shows.
+TEST_F(SolveCommand, ObjectiveAndCheckerSentenceShowTheSameDecimal) {
+  Outcome run = plumb("solve corpus/summer-blend.mps --quiet");
+  const std::string shown = "218176400/237 (~920575.527426)";
+  EXPECT_NE(run.stdout_text.find("objective  " + shown), std::string::npos) << run.stdout_text;
+  EXPECT_NE(run.stdout_text.find("checked    optimal: objective " + shown), std::string::npos) << run.stdout_text;
+}
+
+// 1/7^40 has a 36-character fraction: text shows it rounded, --json and the certificate in full.
+TEST_F(SolveCommand, FractionsTooLongToReadAreRoundedInTextOnly) {
+  const std::string full = "1/6366805760909027985741435139224001";
+  std::string certificate = scratch("long.json");
+  Outcome text = plumb("solve tests/data/solve/long-fraction.plumb --quiet --certificate '" + certificate + "'");
+  EXPECT_EQ(text.exit_status, 0);
+  EXPECT_EQ(text.stdout_text.find(full), std::string::npos) << text.stdout_text;
+  EXPECT_NE(text.stdout_text.find("objective  ~1.57064631395e-34, minimised"), std::string::npos) << text.stdout_text;
+  EXPECT_NE(text.stdout_text.find("exactly a fraction of 36 characters"), std::string::npos) << text.stdout_text;
+  EXPECT_NE(slurp(certificate).find(full), std::string::npos);
+  Outcome json = plumb("solve tests/data/solve/long-fraction.plumb --quiet --json");
+  EXPECT_NE(json.stdout_text.find("\"fraction\": \"" + full + "\""), std::string::npos) << json.stdout_text;
+}
+
+// The certificate carries the final basis under "basis", which the checker ignores; Chvatal
+// (1983, ch. 2): x1, x3 and the slack of c2 are basic at the optimum.
+TEST_F(SolveCommand, CertificateCarriesTheFinalBasis) {
+  std::string certificate = scratch("chvatal.json");
+  EXPECT_EQ(plumb("solve tests/data/check/chvatal-2.1.mps --quiet --certificate '" + certificate + "'").exit_status, 0);
+  auto json = nlohmann::ordered_json::parse(slurp(certificate));
+  EXPECT_EQ(json["basis"].dump(), R"({"columns":{"x1":"basic","x3":"basic"},"rows":{"c2":"basic"}})");
+  EXPECT_EQ(plumb("check tests/data/check/chvatal-2.1.mps '" + certificate + "'").exit_status, 0);
+}
+
+TEST_F(SolveCommand, WrittenBasisStartsTheSameSolveWithoutPivots) {
+  std::string basis = scratch("blend.basis.json"), cold = scratch("cold.json"), warm = scratch("warm.json");
+  EXPECT_EQ(plumb("solve corpus/summer-blend.mps --quiet --write-basis '" + basis + "' --certificate '" + cold + "'")
+                .exit_status,
+            0);
+  Outcome run = plumb("solve corpus/summer-blend.mps --quiet --json --from-basis '" + basis + "' --certificate '" +
+                      warm + "'");
+  EXPECT_EQ(run.exit_status, 0);
+  auto stats = nlohmann::ordered_json::parse(run.stdout_text)["stats"];
+  EXPECT_EQ(stats["exact_iterations"], 0) << stats.dump();
+  EXPECT_EQ(stats["float_iterations"], 0) << stats.dump();
+  EXPECT_EQ(stats["repaired"], false) << stats.dump();
+  EXPECT_EQ(slurp(cold), slurp(warm));
+  EXPECT_EQ(plumb("solve corpus/summer-blend.mps --quiet --write-basis '" + basis + "'").exit_status, 0);
+  EXPECT_EQ(slurp(basis).rfind("{\n  \"plumb_basis\": 1,\n", 0), 0u) << slurp(basis);
+}
+
+TEST_F(SolveCommand, StartBasisFromTheOptimumIsCertifiedAsIs) {
+  Outcome run = plumb("solve tests/data/check/chvatal-2.1.mps --quiet --json --from-basis "
+                      "tests/data/solve/chvatal-2.1.optimal.basis.json");
+  EXPECT_EQ(run.exit_status, 0);
+  auto json = nlohmann::ordered_json::parse(run.stdout_text);
+  EXPECT_EQ(json["objective"]["fraction"], "13");
+  EXPECT_EQ(json["stats"]["exact_iterations"], 0);
+}
+
+TEST_F(SolveCommand, StartBasisWithTooFewBasicVariablesIsRepairedWithAWarning) {
+  const std::string data = PLUMB_TEST_DATA_DIR;
+  auto run = plumb::test::run(PLUMB_EXECUTABLE, {"solve", data + "/check/chvatal-2.1.mps", "--quiet", "--from-basis",
+                                                 data + "/solve/chvatal-2.1.one-basic.basis.json"});
+  EXPECT_EQ(run.status, 0) << run.err;
+  EXPECT_NE(run.out.find("objective  13"), std::string::npos) << run.out;
+  auto lines = plumb::test::lines_of(run.err);
+  ASSERT_EQ(lines.size(), 1u) << run.err;
+  EXPECT_NE(lines[0].find("one-basic.basis.json makes 1 variables basic, but a basis of this model has 3"),
+            std::string::npos)
+      << lines[0];
+}
+
+// JSON figures of the run (docs/solving.md), which the benchmark reads.
+TEST_F(SolveCommand, JsonCarriesTheRunFigures) {
+  auto json = nlohmann::ordered_json::parse(plumb("solve corpus/summer-blend.mps --quiet --json").stdout_text);
+  for (const char* key : {"float_seconds", "certify_seconds", "exact_seconds", "solve_seconds", "float_iterations",
+                          "exact_iterations", "repaired", "fell_back", "peak_memory_mib"})
+    EXPECT_TRUE(json["stats"].contains(key)) << key;
+  EXPECT_GT(json["stats"]["peak_memory_mib"].get<double>(), 0);
 }
 
 // corpus/README.md: the tight batch is infeasible on purpose.

@@ -26,8 +26,8 @@ enum class Outcome { optimal, infeasible, unbounded, stopped };
 struct Progress {
   std::string phase;  // e.g. "float dual", "exact repair"
   long iterations = 0;
-  double objective = 0;
-  double infeasibility = 0;
+  double objective = 0;      // NaN when not known yet (before the first pivot of a phase)
+  double infeasibility = 0;  // likewise
   double elapsed_seconds = 0;
 };
 

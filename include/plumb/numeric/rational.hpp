@@ -44,6 +44,12 @@ Decimal to_decimal(const Rational& value, int significant = 12);
 // "text" when exact, "~text" when rounded: the form used in human-readable output.
 std::string to_display(const Rational& value, int significant = 12);
 
+// The one human-readable form of an exact value, shared by every text rendering (checker included):
+// "42", "1/8 (0.125)", "1/3 (~0.333333333333)".  A fraction too long to read (more than
+// readable_fraction_length characters) is shown as its rounded decimal alone: "~5501.84588831".
+constexpr std::size_t readable_fraction_length = 24;
+std::string exact_and_decimal(const Rational& value);
+
 // A double within one ulp (GMP truncates), for floating-point search only: never for a decision.
 double to_double(const Rational& value);
 

@@ -2,6 +2,7 @@
 #pragma once
 
 #include "plumb/health/health.hpp"
+#include "plumb/present/caution.hpp"
 
 #include <nlohmann/json.hpp>
 
@@ -9,9 +10,6 @@
 #include <string>
 
 namespace plumb::present {
-
-// The line every text report ends with.
-extern const char* const caution_line;
 
 // Sections with short headings and aligned columns; ends with caution_line.
 void write_health_text(const health::HealthReport& report, std::ostream& out);

@@ -37,6 +37,9 @@ class Budget {
 // Resident memory of this process in MiB (from /proc/self/statm), 0 when unknown.
 std::size_t resident_mib();
 
+// Peak resident memory of this process so far in MiB (getrusage ru_maxrss), 0 when unknown.
+double peak_resident_mib();
+
 // Thrown by deep code to unwind to the command when the budget is exhausted.
 struct Stopped {
   StopReason reason;

@@ -1,0 +1,77 @@
+// The machine-readable result of plumb solve: every value in full, and the run's figures.
+#include "format.hpp"
+#include "plumb/present/solve.hpp"
+
+#include <cmath>
+
+namespace plumb::present {
+namespace {
+
+using numeric::Rational;
+
+// Adds an exact value as its fraction and its (possibly rounded) decimal.
+void put_number(nlohmann::ordered_json& target, const Rational& value) {
+  numeric::Decimal decimal = numeric::to_decimal(value);
+  target["fraction"] = numeric::to_fraction(value);
+  target["decimal"] = decimal.text;
+  target["rounded"] = decimal.rounded;
+}
+
+nlohmann::ordered_json named(const certificate::NamedValues& values) {
+  nlohmann::ordered_json list = nlohmann::ordered_json::array();
+  for (const auto& [name, value] : values) {
+    nlohmann::ordered_json item;
+    item["name"] = name;
+    put_number(item, value);
+    list.push_back(std::move(item));
+  }
+  return list;
+}
+
+// Seconds to the millisecond: figures, not measurements to the nanosecond.
+double milliseconds(double seconds) { return std::round(seconds * 1000) / 1000; }
+
+}  // namespace
+
+nlohmann::ordered_json solve_json(const model::Model& model, const exact::CertifiedSolution& result,
+                                  const RunFigures& figures) {
+  const exact::Solution& s = result.solution;
+  const certificate::Certificate& proof = result.certificate;
+  nlohmann::ordered_json out;
+  out["model"] = {{"file", model.source.path},
+                  {"sha256", model.source.sha256},
+                  {"rows", model.row_count()},
+                  {"columns", model.column_count()},
+                  {"nonzeros", model.matrix.nonzeros()},
+                  {"integer_columns", detail::integer_columns(model)}};
+  out["status"] = certificate::to_string(proof.status);
+  if (s.outcome == exact::Outcome::optimal) {
+    put_number(out["objective"], s.objective);
+    put_number(out["objective_constant"], model.objective.constant);
+    out["objective_constant_rule"] = detail::constant_rule_text(model.source);
+    out["x"] = named(proof.x);
+    out["y"] = named(proof.y);
+  } else if (s.outcome == exact::Outcome::infeasible) {
+    out["farkas_y"] = named(proof.y);
+  } else {
+    out["x"] = named(proof.x);
+    out["ray"] = named(proof.ray);
+  }
+  out["checked"] = result.verdict.valid;
+  out["proven"] = result.verdict.proven;
+  const exact::SolveStats& stats = s.stats;
+  out["stats"] = {{"float_seconds", milliseconds(stats.float_seconds)},
+                  {"certify_seconds", milliseconds(stats.certify_seconds)},
+                  {"exact_seconds", milliseconds(stats.exact_seconds)},
+                  {"solve_seconds", milliseconds(figures.solve_seconds)},
+                  {"float_iterations", stats.float_iterations},
+                  {"exact_iterations", stats.exact_iterations},
+                  {"repaired", stats.repaired},
+                  {"fell_back", stats.fell_back},
+                  {"peak_memory_mib", std::round(figures.peak_memory_mib * 10) / 10}};
+  if (!stats.float_note.empty()) out["stats"]["float_note"] = stats.float_note;
+  out["caution"] = caution_line;
+  return out;
+}
+
+}  // namespace plumb::present
