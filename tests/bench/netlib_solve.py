@@ -1,0 +1,247 @@
+#!/usr/bin/env python3
+"""Benchmark of `plumb solve` on the Netlib LPs: solve, check each certificate, compare with the
+published optima, and write the results into docs/benchmarks.md.
+
+    tests/bench/netlib_solve.py [SHARED] [--plumb BIN] [--time-limit S] [--only a,b] [--output FILE]
+
+SHARED is the shared data folder (holding netlib/) or the netlib folder itself; by default
+../shared beside the repository.  Each instance runs as its own `plumb solve --json` process with
+--time-limit S; the certificate it writes is then checked by `plumb check`.  Timings come from the
+"stats" object of solve's JSON, the wall clock of the solve process and its peak resident memory
+(ru_maxrss from wait4).  The table goes between the result markers of the output file (the rest of
+the file is kept); without markers the section is put after the file's first paragraph.
+
+Python 3 standard library only.  Figures, not a test: nothing here passes or fails.
+"""
+
+import argparse
+import csv
+import datetime
+import json
+import os
+import re
+import statistics
+import subprocess
+import sys
+import tempfile
+import time
+from fractions import Fraction
+from pathlib import Path
+
+REPO = Path(__file__).resolve().parents[2]
+BEGIN = "<!-- netlib_solve.py results: begin -->"
+END = "<!-- netlib_solve.py results: end -->"
+
+# Exit statuses of plumb (README): what each means for a solve.
+EXIT_WORDS = {0: "optimal", 10: "infeasible", 11: "unbounded", 3: "stopped", 1: "bad input", 4: "rejected"}
+
+# Extra seconds a solve may take beyond its own --time-limit before the script kills it (reading
+# the model and writing output fall outside plumb's limit).
+KILL_GRACE_SECONDS = 60
+
+
+def parse_arguments():
+    parser = argparse.ArgumentParser(description=__doc__.split("\n\n")[0])
+    parser.add_argument("shared", nargs="?", default=str(REPO.parent / "shared"),
+                        help="shared data folder holding netlib/, or the netlib folder (default ../shared)")
+    parser.add_argument("--plumb", default=str(REPO / "build" / "plumb"), help="the plumb binary (default build/plumb)")
+    parser.add_argument("--time-limit", type=float, default=60, help="seconds per instance (default 60)")
+    parser.add_argument("--only", default="", help="comma-separated instance names (default: all)")
+    parser.add_argument("--output", default=str(REPO / "docs" / "benchmarks.md"),
+                        help="markdown file to update (default docs/benchmarks.md); '-' prints the section")
+    return parser.parse_args()
+
+
+def netlib_folder(shared):
+    folder = Path(shared)
+    if (folder / "netlib" / "published.csv").is_file():
+        return folder / "netlib"
+    if (folder / "published.csv").is_file():
+        return folder
+    sys.exit(f"netlib_solve.py: no published.csv in {folder} or {folder / 'netlib'}")
+
+
+def published_optima(folder):
+    """instance -> published optimum text ("" when none is published), in the file's order."""
+    with open(folder / "published.csv", newline="") as table:
+        return {row["instance"]: row["published_optimum"].strip() for row in csv.DictReader(table)}
+
+
+def last_digit_unit(text):
+    """The place value of the last digit of a published decimal: '5.5018458883E+03' -> 1e-7."""
+    match = re.fullmatch(r"[+-]?(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?", text)
+    if not match:
+        raise ValueError(f"published value {text!r} is not a decimal")
+    fraction_digits = len(match.group(2) or "")
+    exponent = int(match.group(3) or 0)
+    return Fraction(10) ** (exponent - fraction_digits)
+
+
+def run_measured(command, stdout_path, stderr_path, kill_after):
+    """Runs command with output to files; returns (exit status, wall seconds, peak MiB)."""
+    with open(stdout_path, "wb") as out, open(stderr_path, "wb") as err:
+        start = time.monotonic()
+        process = subprocess.Popen(command, stdout=out, stderr=err, stdin=subprocess.DEVNULL)
+        deadline = start + kill_after
+        while True:
+            pid, status, usage = os.wait4(process.pid, os.WNOHANG)
+            if pid:
+                break
+            if time.monotonic() > deadline:
+                process.kill()
+                pid, status, usage = os.wait4(process.pid, 0)
+                break
+            time.sleep(0.02)
+        seconds = time.monotonic() - start
+    process.returncode = os.waitstatus_to_exitcode(status)
+    return process.returncode, seconds, usage.ru_maxrss / 1024  # ru_maxrss is in KiB on Linux
+
+
+def solve_instance(plumb, model, scratch, time_limit):
+    name = model.name[: -len(".mps.gz")]
+    certificate = scratch / f"{name}.certificate.json"
+    stdout_path, stderr_path = scratch / f"{name}.out.json", scratch / f"{name}.err"
+    command = [plumb, "solve", str(model), "--json", "--quiet", "--time-limit", f"{time_limit:g}",
+               "--certificate", str(certificate)]
+    code, seconds, peak = run_measured(command, stdout_path, stderr_path, time_limit + KILL_GRACE_SECONDS)
+    result = {"instance": name, "exit": code, "total_seconds": seconds, "peak_mib": peak,
+              "status": EXIT_WORDS.get(code, "killed" if code < 0 else f"exit {code}"), "certified": False}
+    if code in (0, 10, 11):
+        answer = json.loads(stdout_path.read_text())
+        result["status"] = answer["status"]
+        result["stats"] = answer.get("stats", {})
+        if "objective" in answer:
+            result["objective"] = Fraction(answer["objective"]["fraction"])
+            result["objective_decimal"] = ("~" if answer["objective"]["rounded"] else "") + answer["objective"]["decimal"]
+            result["constant"] = Fraction(answer["objective_constant"]["fraction"])
+        check = subprocess.run([plumb, "check", str(model), str(certificate), "--json"],
+                               capture_output=True, text=True, stdin=subprocess.DEVNULL)
+        result["certified"] = check.returncode == 0 and json.loads(check.stdout).get("valid") is True
+    else:
+        result["message"] = stderr_path.read_text(errors="replace").strip().splitlines()[-1:]
+    for path in (certificate, stdout_path, stderr_path):
+        path.unlink(missing_ok=True)
+    return result
+
+
+def agreement(result, published):
+    """'yes', 'no' or '' (nothing to compare); the published optima leave the objective constant out."""
+    if not published or "objective" not in result:
+        return ""
+    value = result["objective"] - result["constant"]
+    return "yes" if abs(value - Fraction(published)) * 2 <= last_digit_unit(published) else "no"
+
+
+def seconds_text(value):
+    return "" if value is None else f"{value:.3f}"
+
+
+def table_row(result, published):
+    stats = result.get("stats", {})
+    notes = []
+    if stats.get("repaired"):
+        notes.append("repaired")
+    if stats.get("fell_back"):
+        notes.append(f"fell back: exact engine {stats.get('exact_seconds', 0):.3f} s")
+    if result.get("constant"):
+        notes.append(f"compared without the objective constant {float(result['constant']):.12g}")
+    if result.get("message"):
+        notes.append(result["message"][0].removeprefix("plumb: ")[:80])
+    iterations = ""
+    if stats:
+        iterations = f"{stats.get('float_iterations', 0)} + {stats.get('exact_iterations', 0)}"
+    cells = [result["instance"], result["status"], "yes" if result["certified"] else "no",
+             result.get("objective_decimal", ""), published or "(none)", agreement(result, published),
+             seconds_text(stats.get("float_seconds")), seconds_text(stats.get("certify_seconds")),
+             seconds_text(result["total_seconds"]), iterations, f"{result['peak_mib']:.0f}", "; ".join(notes)]
+    return "| " + " | ".join(cell.replace("|", "/") for cell in cells) + " |"
+
+
+def summary_line(results):
+    certified = sum(r["certified"] for r in results)
+    total = sum(r["total_seconds"] for r in results)
+    # Over the certified instances whose float search found a basis (not those that fell back).
+    ratios = [r["stats"]["certify_seconds"] / r["stats"]["float_seconds"] for r in results
+              if r["certified"] and r.get("stats", {}).get("float_seconds", 0) > 0 and "certify_seconds" in r["stats"]
+              and not r["stats"].get("fell_back")]
+    ratio = f"{statistics.median(ratios):.2f}" if ratios else "n/a"
+    peak = max((r["peak_mib"] for r in results), default=0)
+    return f"certified {certified}/{len(results)}, total {total:.1f} s, median certify/float {ratio}, peak {peak:.0f} MiB"
+
+
+def git_revision():
+    try:
+        revision = subprocess.run(["git", "-C", str(REPO), "rev-parse", "--short", "HEAD"], capture_output=True,
+                                  text=True, check=True).stdout.strip()
+        dirty = subprocess.run(["git", "-C", str(REPO), "status", "--porcelain", "--untracked-files=no"],
+                               capture_output=True, text=True).stdout.strip()
+        return revision + (" with local changes" if dirty else "")
+    except (OSError, subprocess.CalledProcessError):
+        return "unknown revision"
+
+
+def section(results, optima, time_limit, started, load_before, load_after):
+    header = ["instance", "status", "certified", "objective (exact, decimal)", "published", "agrees",
+              "float s", "certify s", "total s", "iterations float + exact", "peak MiB", "notes"]
+    lines = [BEGIN, "",
+             f"### {started:%Y-%m-%d %H:%M} UTC, revision {git_revision()}, limit {time_limit:g} s per instance", "",
+             f"Load average {load_before:.1f} at the start and {load_after:.1f} at the end "
+             f"({os.cpu_count()} cores).", "",
+             "| " + " | ".join(header) + " |", "|" + "|".join("---" for _ in header) + "|"]
+    lines += [table_row(r, optima.get(r["instance"], "")) for r in results]
+    differing = [r for r in results if agreement(r, optima.get(r["instance"], "")) == "no"]
+    if differing:
+        lines += ["", "Certified value and published optimum differ (published values leave out the objective "
+                      "constant; the certificate decides):", ""]
+        for r in differing:
+            value = r["objective"] - r["constant"]
+            published = Fraction(optima[r["instance"]])
+            relative = abs(value - published) / abs(published) if published else abs(value)
+            lines.append(f"- {r['instance']}: certified {r['objective_decimal']}"
+                         + (f" ({float(value):.11g} without the constant)" if r["constant"] else "")
+                         + f", published {optima[r['instance']]}, relative difference {float(relative):.2g}")
+    lines += ["", summary_line(results), "", END]
+    return "\n".join(lines)
+
+
+def write_section(output, text):
+    if output == "-":
+        print(text)
+        return
+    path = Path(output)
+    document = path.read_text() if path.exists() else "# Benchmarks\n"
+    if BEGIN in document and END in document:
+        head, rest = document.split(BEGIN, 1)
+        document = head + text + rest.split(END, 1)[1]
+    else:  # after the title and first paragraph
+        parts = document.split("\n\n", 2)
+        document = "\n\n".join(parts[:2] + [text] + parts[2:])
+    path.write_text(document)
+
+
+def main():
+    options = parse_arguments()
+    folder = netlib_folder(options.shared)
+    optima = published_optima(folder)
+    models = sorted(folder.glob("*.mps.gz"))
+    if options.only:
+        wanted = set(options.only.split(","))
+        models = [m for m in models if m.name[: -len(".mps.gz")] in wanted]
+    started = datetime.datetime.now(datetime.timezone.utc)
+    load_before = os.getloadavg()[0]
+    results = []
+    with tempfile.TemporaryDirectory(prefix="plumb-netlib-bench-") as scratch:
+        for model in models:
+            result = solve_instance(options.plumb, model, Path(scratch), options.time_limit)
+            results.append(result)
+            stats = result.get("stats", {})
+            print(f"{result['instance']:10} {result['status']:10} certified={'yes' if result['certified'] else 'no ':3} "
+                  f"total {result['total_seconds']:7.2f} s  float {stats.get('float_seconds', 0):7.2f} s  "
+                  f"certify {stats.get('certify_seconds', 0):7.2f} s  peak {result['peak_mib']:5.0f} MiB",
+                  file=sys.stderr, flush=True)
+    write_section(options.output, section(results, optima, options.time_limit, started, load_before, os.getloadavg()[0]))
+    print(summary_line(results))
+
+
+if __name__ == "__main__":
+    main()
