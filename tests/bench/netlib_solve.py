@@ -7,9 +7,10 @@ published optima, and write the results into docs/benchmarks.md.
 SHARED is the shared data folder (holding netlib/) or the netlib folder itself; by default
 ../shared beside the repository.  Each instance runs as its own `plumb solve --json` process with
 --time-limit S; the certificate it writes is then checked by `plumb check`.  Timings come from the
-"stats" object of solve's JSON, the wall clock of the solve process and its peak resident memory
-(ru_maxrss from wait4).  The table goes between the result markers of the output file (the rest of
-the file is kept); without markers the section is put after the file's first paragraph.
+"stats" object of solve's JSON and the wall clock of the solve process; peak memory is plumb's
+own high-water mark from its stats (ru_maxrss from wait4 for a run that printed none).  The table
+goes between the result markers of the output file (the rest of the file is kept); without
+markers the section is put after the file's first paragraph.
 
 Python 3 standard library only.  Figures, not a test: nothing here passes or fails.
 """
@@ -110,6 +111,8 @@ def solve_instance(plumb, model, scratch, time_limit):
         answer = json.loads(stdout_path.read_text())
         result["status"] = answer["status"]
         result["stats"] = answer.get("stats", {})
+        # plumb's own high-water mark; ru_maxrss also counts this script's memory copied by fork.
+        result["peak_mib"] = result["stats"].get("peak_memory_mib", peak)
         if "objective" in answer:
             result["objective"] = Fraction(answer["objective"]["fraction"])
             result["objective_decimal"] = ("~" if answer["objective"]["rounded"] else "") + answer["objective"]["decimal"]

@@ -37,7 +37,8 @@ class Budget {
 // Resident memory of this process in MiB (from /proc/self/statm), 0 when unknown.
 std::size_t resident_mib();
 
-// Peak resident memory of this process so far in MiB (getrusage ru_maxrss), 0 when unknown.
+// Peak resident memory of this program so far in MiB (VmHWM of /proc/self/status, else getrusage
+// ru_maxrss), 0 when unknown.
 double peak_resident_mib();
 
 // Thrown by deep code to unwind to the command when the budget is exhausted.
