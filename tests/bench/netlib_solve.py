@@ -148,8 +148,10 @@ def table_row(result, published):
         notes.append(f"fell back: exact engine {stats.get('exact_seconds', 0):.3f} s")
     if result.get("constant"):
         notes.append(f"compared without the objective constant {float(result['constant']):.12g}")
-    if result.get("message"):
-        notes.append(result["message"][0].removeprefix("plumb: ")[:80])
+    if result["status"] == "killed":
+        notes.append(f"did not stop at its time limit; killed after {result['total_seconds']:.0f} s")
+    elif result.get("message"):
+        notes.append(result["message"][0].removeprefix("plumb: ").split(";")[0])
     iterations = ""
     if stats:
         iterations = f"{stats.get('float_iterations', 0)} + {stats.get('exact_iterations', 0)}"
