@@ -185,11 +185,11 @@ def git_revision():
         return "unknown revision"
 
 
-def section(results, optima, time_limit, started, load_before, load_after):
+def section(results, optima, time_limit, started, revision, load_before, load_after):
     header = ["instance", "status", "certified", "objective (exact, decimal)", "published", "agrees",
               "float s", "certify s", "total s", "iterations float + exact", "peak MiB", "notes"]
     lines = [BEGIN, "",
-             f"### {started:%Y-%m-%d %H:%M} UTC, revision {git_revision()}, limit {time_limit:g} s per instance", "",
+             f"### {started:%Y-%m-%d %H:%M} UTC, revision {revision}, limit {time_limit:g} s per instance", "",
              f"Load average {load_before:.1f} at the start and {load_after:.1f} at the end "
              f"({os.cpu_count()} cores).", "",
              "| " + " | ".join(header) + " |", "|" + "|".join("---" for _ in header) + "|"]
@@ -233,6 +233,7 @@ def main():
         wanted = set(options.only.split(","))
         models = [m for m in models if m.name[: -len(".mps.gz")] in wanted]
     started = datetime.datetime.now(datetime.timezone.utc)
+    revision = git_revision()  # of the tree as the run starts
     load_before = os.getloadavg()[0]
     results = []
     with tempfile.TemporaryDirectory(prefix="plumb-netlib-bench-") as scratch:
@@ -244,7 +245,7 @@ def main():
                   f"total {result['total_seconds']:7.2f} s  float {stats.get('float_seconds', 0):7.2f} s  "
                   f"certify {stats.get('certify_seconds', 0):7.2f} s  peak {result['peak_mib']:5.0f} MiB",
                   file=sys.stderr, flush=True)
-    write_section(options.output, section(results, optima, options.time_limit, started, load_before, os.getloadavg()[0]))
+    write_section(options.output, section(results, optima, options.time_limit, started, revision, load_before, os.getloadavg()[0]))
     print(summary_line(results))
 
 
