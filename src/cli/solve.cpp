@@ -106,8 +106,8 @@ int run_solve(const SolveCommandOptions& options) {
   const exact::Solution& s = result.solution;
   if (s.outcome == exact::Outcome::stopped) {
     std::cerr << "plumb: stopped (" << run::describe(s.stop_reason) << ") after " << s.stats.float_iterations
-              << " float and " << s.stats.exact_iterations << " exact iterations, in the " << s.stats.phase
-              << " phase; nothing is certified and no certificate was written\n";
+              << " float and " << s.stats.exact_iterations << " exact iterations, during " << s.stats.phase
+              << "; nothing is certified and no certificate was written\n";
     return exit_stopped;
   }
   if (!result.certified()) {

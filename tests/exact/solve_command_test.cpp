@@ -152,6 +152,20 @@ TEST_F(SolveCommand, StartBasisWithTooFewBasicVariablesIsRepairedWithAWarning) {
       << lines[0];
 }
 
+TEST_F(SolveCommand, StartBasisSavedForAnotherFileIsUsedWithAWarning) {
+  const std::string data = PLUMB_TEST_DATA_DIR;
+  auto run = plumb::test::run(PLUMB_EXECUTABLE, {"solve", data + "/check/chvatal-2.1.mps", "--quiet", "--json",
+                                                 "--from-basis", data + "/solve/chvatal-2.1.other-file.basis.json"});
+  EXPECT_EQ(run.status, 0) << run.err;
+  EXPECT_EQ(nlohmann::ordered_json::parse(run.out)["stats"]["exact_iterations"], 0);
+  auto lines = plumb::test::lines_of(run.err);
+  ASSERT_EQ(lines.size(), 1u) << run.err;
+  EXPECT_NE(lines[0].find("other-file.basis.json was saved for another model file (sha256 abababababababab..., this "
+                          "one is d7718d3307b3d441...)"),
+            std::string::npos)
+      << lines[0];
+}
+
 // JSON figures of the run (docs/solving.md), which the benchmark reads.
 TEST_F(SolveCommand, JsonCarriesTheRunFigures) {
   auto json = nlohmann::ordered_json::parse(plumb("solve corpus/summer-blend.mps --quiet --json").stdout_text);
