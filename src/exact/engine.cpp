@@ -1,5 +1,7 @@
 #include "engine.hpp"
 
+#include "refine.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <stdexcept>
@@ -150,37 +152,105 @@ void Engine::start_from_logicals() {
   install_basis(std::move(logicals));
 }
 
-bool Engine::start_from(const simplex::Basis& basis) {
+bool Engine::fits(const simplex::Basis& basis) const {
+  return basis.columns.size() == static_cast<std::size_t>(n_) && basis.rows.size() == static_cast<std::size_t>(m_);
+}
+
+std::vector<int> Engine::rest_as_in(const simplex::Basis& basis) {
   std::fill(position_.begin(), position_.end(), -1);
-  bool wrong_size = basis.columns.size() != static_cast<std::size_t>(n_) ||
-                    basis.rows.size() != static_cast<std::size_t>(m_);
-  if (wrong_size) {
-    start_from_logicals();
-    repaired_ = true;
-    return true;
-  }
   std::vector<int> basic_variables;
   for (int k = 0; k < total(); ++k) {
     VarStatus wanted = k < n_ ? basis.columns[k] : basis.rows[k - n_];
     if (wanted == VarStatus::basic) basic_variables.push_back(k);
     else rest_nonbasic(k, wanted);
   }
-  repaired_ = install_basis(std::move(basic_variables));
+  return basic_variables;
+}
+
+bool Engine::start_from(const simplex::Basis& basis) {
+  certified_ = false;
+  if (!fits(basis)) {
+    start_from_logicals();
+    repaired_ = true;
+    return true;
+  }
+  repaired_ = install_basis(rest_as_in(basis));
   return repaired_;
 }
 
-void Engine::compute_basic_values() {
+bool Engine::certify_by_refinement(const simplex::Basis& basis) {
+  certified_ = false;
+  if (!fits(basis)) return false;
+  head_ = rest_as_in(basis);
+  if (static_cast<int>(head_.size()) != m_) return false;
+  for (int p = 0; p < m_; ++p) {
+    position_[head_[p]] = p;
+    status_[head_[p]] = VarStatus::basic;
+  }
+  std::vector<SparseColumn> columns(static_cast<std::size_t>(m_));
+  for (int p = 0; p < m_; ++p) columns[p] = constraint_column(head_[p]);
+  RefinedSolver solver;
+  if (!solver.factorize(m_, columns)) return false;
+
+  nonbasic_activity(rows_);
+  std::vector<Rational> rhs(static_cast<std::size_t>(m_), Rational(0));
+  for (int i : rows_.pattern()) rhs[i] = rows_[i];
   rows_.clear();
+  auto x_basic = solver.solve(rhs);
+  if (!x_basic) return false;
+  for (int p = 0; p < m_; ++p) value_[head_[p]].backend().swap((*x_basic)[p].backend());
+  if (infeasible_basis()) return false;
+
+  std::vector<Rational> basic_costs(static_cast<std::size_t>(m_));
+  for (int p = 0; p < m_; ++p) basic_costs[p] = cost_[head_[p]];
+  auto y = solver.solve_transposed(basic_costs);
+  if (!y) return false;
+  // Signs of the reduced costs from y = P / Q over integer-scaled columns: d_j has the sign of
+  // D_j c'_j Q - sum_i (D_j a_ij) P_i, integer products without a gcd each (y's fractions are
+  // long: thousands of bits on some Netlib bases).
+  const std::vector<Integer>& numerators = solver.common_numerators();
+  const Integer& denominator = solver.common_denominator();
+  scale_columns();
+  Integer sum;
+  bool improvable = false;
+  for_each_priced_column([&](int j, std::span<const int> rows, std::size_t entry) {
+    if (improvable) return;
+    mpz_mul(sum.backend().data(), scaled_cost_[j].backend().data(), denominator.backend().data());
+    for (int r : rows) {
+      const Integer& a = scaled_matrix_[entry++];
+      mpz_submul(sum.backend().data(), a.backend().data(), numerators[r].backend().data());
+    }
+    improvable = eligible_sign(j, mpz_sgn(sum.backend().data()));
+  });
+  if (improvable) return false;
+  for (int i = 0; i < m_; ++i)  // d = y_i for the logical r_i, whose column is -e_i
+    if (!basic(n_ + i) && !fixed_[n_ + i] && eligible_sign(n_ + i, mpz_sgn(numerators[i].backend().data())))
+      return false;
+  duals_.clear();
+  for (int i = 0; i < m_; ++i)
+    if (!is_zero((*y)[i])) duals_.swap_in(i, (*y)[i]);
+  certified_ = true;
+  phase_ = "exact certification";
+  return true;
+}
+
+// target = -N x_N, the right-hand side of B x_B = -N x_N for the system A x - r = 0.
+void Engine::nonbasic_activity(SparseVector& target) {
+  target.clear();
   for (int k = 0; k < total(); ++k) {
     if (basic(k) || is_zero(value_[k])) continue;
     if (k >= n_) {
-      rows_.at(k - n_) += value_[k];
+      target.at(k - n_) += value_[k];
       continue;
     }
     auto rows = model_.matrix.column_rows(k);
     auto values = model_.matrix.column_values(k);
-    for (std::size_t e = 0; e < rows.size(); ++e) subtract_product(rows_.at(rows[e]), values[e], value_[k], scratch_);
+    for (std::size_t e = 0; e < rows.size(); ++e) subtract_product(target.at(rows[e]), values[e], value_[k], scratch_);
   }
+}
+
+void Engine::compute_basic_values() {
+  nonbasic_activity(rows_);
   factor_.ftran(rows_, positions_);
   for (int p = 0; p < m_; ++p) value_[head_[p]] = positions_[p];
   positions_.clear();
@@ -223,15 +293,50 @@ void Engine::reduced_cost(int k, bool phase_one, Rational& out) {
   }
 }
 
-bool Engine::eligible(int k, const Rational& d) const {
+bool Engine::eligible(int k, const Rational& d) const { return eligible_sign(k, sign_of(d)); }
+
+bool Engine::eligible_sign(int k, int sign) const {
   if (fixed_[k]) return false;
   switch (status_[k]) {
-    case VarStatus::at_lower: return sign_of(d) < 0;
-    case VarStatus::at_upper: return sign_of(d) > 0;
-    case VarStatus::at_zero: return sign_of(d) != 0;
+    case VarStatus::at_lower: return sign < 0;
+    case VarStatus::at_upper: return sign > 0;
+    case VarStatus::at_zero: return sign != 0;
     case VarStatus::basic: return false;
   }
   return false;
+}
+
+// Calls visit(j, rows, entry) for every column j that may enter (nonbasic, not fixed), with its
+// row indices and the position of its first entry in column order (matrix_estimate_,
+// scaled_matrix_).
+template <class Visit>
+void Engine::for_each_priced_column(Visit&& visit) const {
+  std::size_t entry = 0;
+  for (int j = 0; j < n_; ++j) {
+    auto rows = model_.matrix.column_rows(j);
+    if (!basic(j) && !fixed_[j]) visit(j, rows, entry);
+    entry += rows.size();
+  }
+}
+
+// Column j of A and c'_j times D_j, the least common denominator of the column and its cost.
+void Engine::scale_columns() {
+  if (!scaled_cost_.empty() || n_ == 0) return;
+  scaled_cost_.resize(static_cast<std::size_t>(n_));
+  scaled_matrix_.resize(model_.matrix.nonzeros());
+  Integer scale;
+  std::size_t entry = 0;
+  for (int j = 0; j < n_; ++j) {
+    auto values = model_.matrix.column_values(j);
+    mpz_set(scale.backend().data(), mpq_denref(cost_[j].backend().data()));
+    for (const Rational& a : values) mpz_lcm(scale.backend().data(), scale.backend().data(), mpq_denref(a.backend().data()));
+    auto times_scale = [&scale](const Rational& q, Integer& out) {
+      mpz_divexact(out.backend().data(), scale.backend().data(), mpq_denref(q.backend().data()));
+      mpz_mul(out.backend().data(), out.backend().data(), mpq_numref(q.backend().data()));
+    };
+    times_scale(cost_[j], scaled_cost_[j]);
+    for (const Rational& a : values) times_scale(a, scaled_matrix_[entry++]);
+  }
 }
 
 bool Engine::poll(const char* phase) {
@@ -271,6 +376,18 @@ void Engine::exchange(int entering, int leaving_position, VarStatus leaving_stat
   factor_.update(leaving_position, alpha_);
 }
 
+// Counts a pivot.  After degenerate_run_limit degenerate pivots in a row the choices follow
+// Bland's rule until one makes progress.
+void Engine::count_pivot(bool degenerate) {
+  ++iterations_;
+  if (!degenerate) {
+    degenerate_run_ = 0;
+    bland_ = false;
+  } else if (++degenerate_run_ > degenerate_run_limit) {
+    bland_ = true;
+  }
+}
+
 Engine::Step Engine::primal() {
   std::vector<std::pair<double, int>> candidates;
   for (;;) {
@@ -287,17 +404,11 @@ Engine::Step Engine::primal() {
       }
       factor_.estimate_btran(cost_estimate_of_basis_, dual_estimate_);
       candidates.clear();
-      std::size_t entry = 0;
-      for (int j = 0; j < n_; ++j) {
-        auto rows = model_.matrix.column_rows(j);
-        if (basic(j) || fixed_[j]) {
-          entry += rows.size();
-          continue;
-        }
+      for_each_priced_column([&](int j, std::span<const int> rows, std::size_t entry) {
         double d = phase_one ? 0.0 : cost_estimate_[j];
         for (int r : rows) d -= matrix_estimate_[entry++] * dual_estimate_[r];
         if (improving_estimate(j, d)) candidates.emplace_back(-std::abs(d), j);
-      }
+      });
       for (int i = 0; i < m_; ++i)
         if (!basic(n_ + i) && !fixed_[n_ + i] && improving_estimate(n_ + i, dual_estimate_[i]))
           candidates.emplace_back(-std::abs(dual_estimate_[i]), n_ + i);
@@ -398,12 +509,8 @@ Engine::Step Engine::primal() {
         if (head_[p] < n_ && !is_zero(alpha_[p])) ray_[head_[p]] = direction > 0 ? Rational(-alpha_[p]) : alpha_[p];
       return Step::unbounded;
     }
-    ++iterations_;
-    if (is_zero(best_ratio_)) {
-      if (++degenerate_run_ > degenerate_run_limit) bland_ = true;
-    } else {
-      degenerate_run_ = 0;
-      bland_ = false;
+    count_pivot(is_zero(best_ratio_));
+    if (!is_zero(best_ratio_)) {
       if (direction < 0) best_ratio_ = -best_ratio_;  // signed step of the entering variable
       value_[entering] += best_ratio_;
       for (int p : alpha_.pattern())
@@ -537,13 +644,7 @@ Engine::Step Engine::dual() {
         for (Rational& v : farkas_) v = -v;
       return Step::infeasible;
     }
-    ++iterations_;
-    if (is_zero(best_ratio_)) {
-      if (++degenerate_run_ > degenerate_run_limit) bland_ = true;
-    } else {
-      degenerate_run_ = 0;
-      bland_ = false;
-    }
+    count_pivot(is_zero(best_ratio_));
     entering_column(entering);
     // Primal step: theta moves the leaving variable exactly onto its violated bound.
     const Rational& bound = to_lower ? *lower_[leaving] : *upper_[leaving];
@@ -587,6 +688,10 @@ void Engine::fill_result(EngineResult& result, Step step) {
 EngineResult Engine::run() {
   EngineResult result;
   Step step = Step::done;
+  if (certified_) {
+    fill_result(result, step);
+    return result;
+  }
   if (infeasible_basis() && make_dual_feasible()) step = dual();
   if (step == Step::done) step = primal();
   fill_result(result, step);

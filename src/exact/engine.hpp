@@ -8,11 +8,13 @@
 #include "plumb/simplex/basis.hpp"
 
 #include <functional>
+#include <span>
 #include <string>
 #include <vector>
 
 namespace plumb::exact::detail {
 
+using numeric::Integer;
 using simplex::VarStatus;
 
 struct EngineResult {
@@ -43,6 +45,11 @@ class Engine {
   // Starts from a given basis; one of the wrong size or singular is repaired by putting logicals
   // in place of dependent columns.  Returns true when a repair was needed.
   bool start_from(const simplex::Basis& basis);
+  // Certifies a basis without a rational LU or any pivot: x_B and y by float LU, iterative
+  // refinement and rational reconstruction, each proven by exact multiplication (refine.hpp).
+  // True when both are feasible; run() then reports the optimum.  False when the basis does not
+  // fit, refinement gives up, or either check fails: then start_from the same basis.
+  bool certify_by_refinement(const simplex::Basis& basis);
 
   // Runs from the current basis: nothing when it is already optimal, dual simplex when it is dual
   // feasible, otherwise primal simplex with phase 1 as needed.
@@ -57,6 +64,10 @@ class Engine {
   bool infeasible_basis() const;
   void scatter_column(int k, SparseVector& target) const;
   void rest_nonbasic(int k, VarStatus wanted);
+  bool fits(const simplex::Basis& basis) const;
+  // Rests every nonbasic variable where the basis says and returns the basic ones.
+  std::vector<int> rest_as_in(const simplex::Basis& basis);
+  void nonbasic_activity(SparseVector& target);
   SparseColumn constraint_column(int k) const;
   void refactor();
   bool install_basis(std::vector<int> basic_variables);
@@ -64,6 +75,10 @@ class Engine {
   void compute_duals(bool phase_one);
   void reduced_cost(int k, bool phase_one, Rational& out);
   bool eligible(int k, const Rational& d) const;
+  bool eligible_sign(int k, int sign) const;  // as eligible, for a reduced cost of this sign
+  void scale_columns();
+  template <class Visit>
+  void for_each_priced_column(Visit&& visit) const;
   bool improving_estimate(int k, double d) const;
   void entering_column(int k);  // alpha_ = B^{-1} times column k
   void reduced_cost_from_column(int k, bool phase_one, Rational& out);
@@ -72,6 +87,7 @@ class Engine {
   Step dual();
   bool poll(const char* phase);
   void exchange(int entering, int leaving_position, VarStatus leaving_status);
+  void count_pivot(bool degenerate);
   void fill_result(EngineResult& result, Step step);
 
   const model::Model& model_;
@@ -81,6 +97,7 @@ class Engine {
   std::vector<const Rational*> lower_, upper_;  // null: infinite
   std::vector<char> fixed_;
   std::vector<Rational> cost_;                  // c' (minimisation form), logicals 0
+  std::vector<Integer> scaled_cost_, scaled_matrix_;  // scale_columns(): D_j c'_j and D_j a_ij
   std::vector<double> cost_estimate_, matrix_estimate_;
   std::vector<Rational> value_;
   std::vector<VarStatus> status_;
@@ -94,6 +111,7 @@ class Engine {
   int degenerate_run_ = 0;
   bool bland_ = false;
   bool repaired_ = false;
+  bool certified_ = false;  // certify_by_refinement succeeded
   std::string phase_;
   std::vector<Rational> farkas_;
   std::vector<Rational> ray_;

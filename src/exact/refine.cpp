@@ -162,7 +162,11 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
   correction_.assign(static_cast<std::size_t>(m_), Integer(0));
   exponent_ = 0;
   std::vector<Rational> answer;
-  if (all_zero(residual_)) return std::vector<Rational>(static_cast<std::size_t>(m_), Rational(0));
+  if (all_zero(residual_)) {
+    candidate_.assign(static_cast<std::size_t>(m_), Integer(0));
+    common_denominator_ = 1;
+    return std::vector<Rational>(static_cast<std::size_t>(m_), Rational(0));
+  }
 
   constexpr int max_step = 50;  // bits per step: a double holds 53
   constexpr long min_gain = 4;
@@ -303,6 +307,7 @@ bool RefinedSolver::prove(const IntegerMatrix& matrix, Integer common, std::vect
   if (!all_zero(check_)) return false;
   stats_.denominator_bits = static_cast<long>(mpz_sizeinbase(z(common), 2));
   mpz_mul(z(common), z(common), z(rhs_denominator_));
+  common_denominator_ = common;
   answer.resize(static_cast<std::size_t>(m_));
   mpz_set_ui(z(seed_), 1);
   for (int j = 0; j < m_; ++j) {

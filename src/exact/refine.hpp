@@ -55,6 +55,10 @@ class RefinedSolver {
   std::optional<std::vector<Rational>> solve_transposed(const std::vector<Rational>& c);
 
   const RefineStats& stats() const { return stats_; }
+  // The last answer returned, as integer numerators over one positive common denominator: exact
+  // arithmetic on it needs no gcd per operation.  Valid until the next solve.
+  const std::vector<Integer>& common_numerators() const { return candidate_; }
+  const Integer& common_denominator() const { return common_denominator_; }
 
   // M = D B (or D B^T), scaled to integers by the positive diagonal D of each row's least common
   // denominator, column-wise.
@@ -84,6 +88,7 @@ class RefinedSolver {
   // Working storage reused across steps: rhs scaled to integers, N, r, corrections, checks.
   std::vector<Integer> rhs_, numerator_, residual_, correction_, check_, candidate_;
   Integer rhs_denominator_;  // the integer rhs is L * D * b
+  Integer common_denominator_;
   long exponent_ = 0;        // E
   Integer seed_ = 0;         // least common denominator of the last verified answer, 0 before one
   std::vector<double> work_;

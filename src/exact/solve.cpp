@@ -26,8 +26,8 @@ Solution run_exact(const model::Model& model, const SolveOptions& options, const
   }
   detail::Engine engine(model, options.budget, &options.progress);
   bool repaired = false;
-  if (start) repaired = engine.start_from(*start);
-  else engine.start_from_logicals();
+  if (!start) engine.start_from_logicals();
+  else if (!engine.certify_by_refinement(*start)) repaired = engine.start_from(*start);
   detail::EngineResult result = engine.run();
 
   Solution solution;

@@ -179,6 +179,25 @@ TEST(Refine, NearlySingularMatricesGiveTheExactAnswerOrNone) {
   }
 }
 
+// Answers that are not dyadic need the continued-fraction step: 1/3, 22/7 and 355/113 (the
+// classical convergents of pi, from memory) as the solution of a diagonal system, and the same
+// answer as integers over one common denominator.
+TEST(Refine, NonDyadicFractionsAreReconstructedOverACommonDenominator) {
+  Columns columns(3);
+  columns[0] = {{0}, {Rational(3)}};
+  columns[1] = {{1}, {Rational(7)}};
+  columns[2] = {{2}, {Rational(113)}};
+  RefinedSolver solver;
+  ASSERT_TRUE(solver.factorize(3, columns));
+  auto x = solver.solve({Rational(1), Rational(22), Rational(355)});
+  ASSERT_TRUE(x);
+  EXPECT_EQ(*x, (std::vector<Rational>{Rational(1, 3), Rational(22, 7), Rational(355, 113)}));
+  const auto& numerators = solver.common_numerators();
+  ASSERT_EQ(numerators.size(), 3u);
+  for (int i = 0; i < 3; ++i)
+    EXPECT_EQ(Rational(numerators[i]) / Rational(solver.common_denominator()), (*x)[i]) << i;
+}
+
 TEST(Refine, ZeroRightHandSideGivesZero) {
   std::mt19937 random(11);
   Columns columns = random_matrix(10, 0.2, false, random);
