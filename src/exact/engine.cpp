@@ -168,7 +168,7 @@ std::vector<int> Engine::rest_as_in(const simplex::Basis& basis) {
 }
 
 bool Engine::start_from(const simplex::Basis& basis) {
-  certified_ = false;
+  settled_.reset();
   if (!fits(basis)) {
     start_from_logicals();
     repaired_ = true;
@@ -179,7 +179,7 @@ bool Engine::start_from(const simplex::Basis& basis) {
 }
 
 bool Engine::certify_by_refinement(const simplex::Basis& basis) {
-  certified_ = false;
+  settled_.reset();
   if (!fits(basis)) return false;
   head_ = rest_as_in(basis);
   if (static_cast<int>(head_.size()) != m_) return false;
@@ -229,7 +229,7 @@ bool Engine::certify_by_refinement(const simplex::Basis& basis) {
   duals_.clear();
   for (int i = 0; i < m_; ++i)
     if (!is_zero((*y)[i])) duals_.swap_in(i, (*y)[i]);
-  certified_ = true;
+  settled_ = Step::done;
   phase_ = "exact certification";
   return true;
 }
@@ -503,10 +503,7 @@ Engine::Step Engine::primal() {
     }
     if (!bounded) {
       if (phase_one) throw std::logic_error("exact simplex: phase 1 ray without a blocking variable");
-      ray_.assign(static_cast<std::size_t>(n_), Rational(0));
-      if (entering < n_) ray_[entering] = direction;
-      for (int p : alpha_.pattern())
-        if (head_[p] < n_ && !is_zero(alpha_[p])) ray_[head_[p]] = direction > 0 ? Rational(-alpha_[p]) : alpha_[p];
+      set_ray(entering, direction);
       return Step::unbounded;
     }
     count_pivot(is_zero(best_ratio_));
@@ -573,6 +570,81 @@ bool Engine::make_dual_feasible() {
   return true;
 }
 
+// duals_ = rho, row `position` of B^{-1}; pivot_row_ = rho^T M_k for the variables that may
+// enter (nonbasic, not fixed), zeros dropped.
+void Engine::compute_pivot_row(int position) {
+  positions_.clear();
+  positions_.at(position) = 1;
+  const SparseVector& rho = duals_;
+  factor_.btran(positions_, duals_);
+  pivot_row_.clear();
+  for (int i : rho.pattern()) {
+    const Rational& r = rho[i];
+    if (is_zero(r)) continue;
+    if (!basic(n_ + i) && !fixed_[n_ + i]) pivot_row_.at(n_ + i) = -r;
+    auto columns = model_.matrix.row_columns(i);
+    auto where = model_.matrix.row_positions(i);
+    for (std::size_t e = 0; e < columns.size(); ++e) {
+      int j = columns[e];
+      if (basic(j) || fixed_[j]) continue;
+      add_product(pivot_row_.at(j), r, model_.matrix.value(where[e]), scratch_);
+    }
+  }
+  pivot_row_.tidy();
+}
+
+// Whether nonbasic k, moving off its bound, would move the basic variable of the pivot row
+// towards the bound it violates (below it when to_lower).
+bool Engine::dual_candidate(int k, bool to_lower) const {
+  int s = sign_of(pivot_row_[k]);
+  return status_[k] == VarStatus::at_zero ||
+         (status_[k] == VarStatus::at_lower ? (s < 0) == to_lower : (s > 0) == to_lower);
+}
+
+bool Engine::certify_infeasible_row(int variable) {
+  if (variable < 0 || variable >= total() || !basic(variable) || (!below(variable) && !above(variable))) return false;
+  const bool to_lower = below(variable);
+  compute_pivot_row(position_[variable]);
+  for (int k : pivot_row_.pattern())
+    if (dual_candidate(k, to_lower)) return false;
+  farkas_.assign(static_cast<std::size_t>(m_), Rational(0));
+  for (int i : duals_.pattern()) farkas_[i] = to_lower ? Rational(-duals_[i]) : duals_[i];
+  settled_ = Step::infeasible;
+  phase_ = "exact certification";
+  return true;
+}
+
+bool Engine::certify_ray(int variable) {
+  if (variable < 0 || variable >= total() || basic(variable) || fixed_[variable] || infeasible_basis()) return false;
+  compute_duals(false);
+  reduced_cost(variable, false, d_);
+  if (!eligible(variable, d_)) return false;
+  const int direction = status_[variable] == VarStatus::at_lower   ? 1
+                        : status_[variable] == VarStatus::at_upper ? -1
+                        : sign_of(d_) < 0                          ? 1
+                                                                   : -1;
+  if (direction > 0 ? upper_[variable] != nullptr : lower_[variable] != nullptr) return false;
+  entering_column(variable);
+  for (int p : alpha_.pattern()) {
+    int s = sign_of(alpha_[p]);
+    if (s == 0) continue;
+    bool increasing = (s < 0) == (direction > 0);  // basic variables move by -direction * alpha_p
+    if (increasing ? upper_[head_[p]] != nullptr : lower_[head_[p]] != nullptr) return false;
+  }
+  set_ray(variable, direction);
+  settled_ = Step::unbounded;
+  phase_ = "exact certification";
+  return true;
+}
+
+// ray_ = the edge along which `entering` moves in `direction`: +-(e_q - B^{-1} a_q) on the columns.
+void Engine::set_ray(int entering, int direction) {
+  ray_.assign(static_cast<std::size_t>(n_), Rational(0));
+  if (entering < n_) ray_[entering] = direction;
+  for (int p : alpha_.pattern())
+    if (head_[p] < n_ && !is_zero(alpha_[p])) ray_[head_[p]] = direction > 0 ? Rational(-alpha_[p]) : alpha_[p];
+}
+
 Engine::Step Engine::dual() {
   for (;;) {
     if (!poll("exact dual")) return Step::stopped;
@@ -593,38 +665,17 @@ Engine::Step Engine::dual() {
     const int leaving = head_[leaving_position];
     const bool to_lower = below(leaving);
 
-    // rho = row leaving_position of B^{-1}; pivot row entries alpha_k = rho^T M_k.
-    positions_.clear();
-    positions_.at(leaving_position) = 1;
-    SparseVector& rho = duals_;
-    factor_.btran(positions_, rho);
-    pivot_row_.clear();
-    for (int i : rho.pattern()) {
-      const Rational& r = rho[i];
-      if (is_zero(r)) continue;
-      if (!basic(n_ + i) && !fixed_[n_ + i]) pivot_row_.at(n_ + i) = -r;
-      auto columns = model_.matrix.row_columns(i);
-      auto where = model_.matrix.row_positions(i);
-      for (std::size_t e = 0; e < columns.size(); ++e) {
-        int j = columns[e];
-        if (basic(j) || fixed_[j]) continue;
-        add_product(pivot_row_.at(j), r, model_.matrix.value(where[e]), scratch_);
-      }
-    }
+    compute_pivot_row(leaving_position);
     std::vector<Rational> row_of_inverse(static_cast<std::size_t>(m_), Rational(0));
-    for (int i : rho.pattern()) row_of_inverse[i] = rho[i];
+    for (int i : duals_.pattern()) row_of_inverse[i] = duals_[i];
 
     // Dual ratio test, exact: the entering variable keeps every reduced cost's sign.
     compute_duals(false);
-    pivot_row_.tidy();
     int entering = -1;
     double entering_size = 0;
     for (int k : pivot_row_.pattern()) {
       const Rational& a = pivot_row_[k];
-      int s = sign_of(a);
-      bool candidate = status_[k] == VarStatus::at_zero ||
-                       (status_[k] == VarStatus::at_lower ? (s < 0) == to_lower : (s > 0) == to_lower);
-      if (!candidate) continue;
+      if (!dual_candidate(k, to_lower)) continue;
       reduced_cost(k, false, ratio_);
       mpq_div(ratio_.backend().data(), ratio_.backend().data(), a.backend().data());
       if (sign_of(ratio_) < 0) ratio_ = -ratio_;
@@ -688,8 +739,8 @@ void Engine::fill_result(EngineResult& result, Step step) {
 EngineResult Engine::run() {
   EngineResult result;
   Step step = Step::done;
-  if (certified_) {
-    fill_result(result, step);
+  if (settled_) {
+    fill_result(result, *settled_);
     return result;
   }
   if (infeasible_basis() && make_dual_feasible()) step = dual();

@@ -8,6 +8,7 @@
 #include "plumb/simplex/basis.hpp"
 
 #include <functional>
+#include <optional>
 #include <span>
 #include <string>
 #include <vector>
@@ -50,6 +51,12 @@ class Engine {
   // True when both are feasible; run() then reports the optimum.  False when the basis does not
   // fit, refinement gives up, or either check fails: then start_from the same basis.
   bool certify_by_refinement(const simplex::Basis& basis);
+  // After start_from: proves infeasibility from the row of B^{-1} of this basic variable, which
+  // violates a bound that no nonbasic variable can bring it towards (the float search's hint).
+  bool certify_infeasible_row(int variable);
+  // After start_from, on an exactly primal feasible basis: proves unboundedness along the edge on
+  // which this nonbasic variable improves the objective and nothing blocks it.
+  bool certify_ray(int variable);
 
   // Runs from the current basis: nothing when it is already optimal, dual simplex when it is dual
   // feasible, otherwise primal simplex with phase 1 as needed.
@@ -83,6 +90,9 @@ class Engine {
   void entering_column(int k);  // alpha_ = B^{-1} times column k
   void reduced_cost_from_column(int k, bool phase_one, Rational& out);
   bool make_dual_feasible();
+  void compute_pivot_row(int position);
+  bool dual_candidate(int k, bool to_lower) const;
+  void set_ray(int entering, int direction);
   Step primal();
   Step dual();
   bool poll(const char* phase);
@@ -111,7 +121,7 @@ class Engine {
   int degenerate_run_ = 0;
   bool bland_ = false;
   bool repaired_ = false;
-  bool certified_ = false;  // certify_by_refinement succeeded
+  std::optional<Step> settled_;  // set by the certify_ functions: run() reports it
   std::string phase_;
   std::vector<Rational> farkas_;
   std::vector<Rational> ray_;

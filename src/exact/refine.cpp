@@ -159,6 +159,8 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
   }
   residual_ = rhs_;
   numerator_.assign(static_cast<std::size_t>(m_), Integer(0));
+  recent_.assign(static_cast<std::size_t>(m_), Integer(0));
+  recent_bits_ = 0;
   correction_.assign(static_cast<std::size_t>(m_), Integer(0));
   exponent_ = 0;
   std::vector<Rational> answer;
@@ -207,15 +209,18 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
     for (int j = 0; j < m_; ++j) {
       mpz_set_d(z(correction_[j]), std::nearbyint(std::ldexp(work_[j], direct)));
       if (scale > direct) mpz_mul_2exp(z(correction_[j]), z(correction_[j]), static_cast<mp_bitcnt_t>(scale - direct));
-      mpz_mul_2exp(z(numerator_[j]), z(numerator_[j]), static_cast<mp_bitcnt_t>(step));
-      mpz_add(z(numerator_[j]), z(numerator_[j]), z(correction_[j]));
+      mpz_mul_2exp(z(recent_[j]), z(recent_[j]), static_cast<mp_bitcnt_t>(step));
+      mpz_add(z(recent_[j]), z(recent_[j]), z(correction_[j]));
     }
+    recent_bits_ += step;
+    if (recent_bits_ >= recent_limit_bits) fold_recent();
     for (Integer& r : residual_) mpz_mul_2exp(z(r), z(r), static_cast<mp_bitcnt_t>(step));
     subtract_product(matrix, correction_, residual_);
     exponent_ += step;
     stats_.bits = exponent_;
     if (all_zero(residual_)) {
       // N / 2^E is the exact solution.
+      fold_recent();
       candidate_ = numerator_;
       Integer power = 1;
       mpz_mul_2exp(z(power), z(power), static_cast<mp_bitcnt_t>(exponent_));
@@ -234,11 +239,24 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
   }
 }
 
+// N <- 2^b N + R for the b bits of the recent steps' sum R: shifting the long N once per block of
+// steps instead of once per step keeps the work linear in E (it was the largest cost on maros-r7).
+void RefinedSolver::fold_recent() {
+  if (recent_bits_ == 0) return;
+  for (int j = 0; j < m_; ++j) {
+    mpz_mul_2exp(z(numerator_[j]), z(numerator_[j]), static_cast<mp_bitcnt_t>(recent_bits_));
+    mpz_add(z(numerator_[j]), z(numerator_[j]), z(recent_[j]));
+    mpz_set_ui(z(recent_[j]), 0);
+  }
+  recent_bits_ = 0;
+}
+
 // Tries to recover every component as p_j / (Q L) with a common Q and to prove M p = Q rhs_.
 // With a seed, only the guess p_j = round(N_j Q / 2^E) for Q = *seed is tried.
 bool RefinedSolver::reconstruct(const IntegerMatrix& matrix, long error_bits, const Integer* seed,
                                 std::vector<Rational>& answer) {
   ++stats_.reconstructions;
+  fold_recent();
   const long slack_bits = std::max(0L, error_bits + limits_.guard_bits);
   const long bound_bits = (exponent_ - slack_bits) / 2;  // denominators up to 2^bound_bits are unique
   if (bound_bits < 1 && !seed) return false;

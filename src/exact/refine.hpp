@@ -78,6 +78,7 @@ class RefinedSolver {
   void subtract_product(const IntegerMatrix& matrix, const std::vector<Integer>& z, std::vector<Integer>& target);
   bool reconstruct(const IntegerMatrix& matrix, long error_bits, const Integer* seed, std::vector<Rational>& answer);
   bool prove(const IntegerMatrix& matrix, Integer common, std::vector<Rational>& answer);
+  void fold_recent();
 
   RefineLimits limits_;
   RefineStats stats_;
@@ -90,6 +91,10 @@ class RefinedSolver {
   Integer rhs_denominator_;  // the integer rhs is L * D * b
   Integer common_denominator_;
   long exponent_ = 0;        // E
+  // The corrections of the last steps, summed apart from N: N / 2^E is (2^b N + R) / 2^E.
+  static constexpr long recent_limit_bits = 2048;
+  std::vector<Integer> recent_;
+  long recent_bits_ = 0;     // b
   Integer seed_ = 0;         // least common denominator of the last verified answer, 0 before one
   std::vector<double> work_;
 };

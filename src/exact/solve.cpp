@@ -16,8 +16,11 @@ double seconds_since(std::chrono::steady_clock::time_point start) {
   return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
 }
 
-// Runs the exact engine from the given basis (or from the logical basis when null).
-Solution run_exact(const model::Model& model, const SolveOptions& options, const simplex::Basis* start) {
+// Runs the exact engine from the given basis (or from the logical basis when null).  `found`, the
+// float search's result ending at that basis, lets its claim be proven without pivots: optimality
+// by refinement, infeasibility from the row of B^{-1} it names, unboundedness along its edge.
+Solution run_exact(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
+                   const simplex::FloatResult* found = nullptr) {
   auto clock = std::chrono::steady_clock::now();
   if (options.progress) {  // factorizing the start can take a while before the first pivot
     double nothing_yet = std::numeric_limits<double>::quiet_NaN();
@@ -26,8 +29,15 @@ Solution run_exact(const model::Model& model, const SolveOptions& options, const
   }
   detail::Engine engine(model, options.budget, &options.progress);
   bool repaired = false;
-  if (!start) engine.start_from_logicals();
-  else if (!engine.certify_by_refinement(*start)) repaired = engine.start_from(*start);
+  if (!start) {
+    engine.start_from_logicals();
+  } else if (found && found->status != simplex::FloatStatus::optimal) {
+    repaired = engine.start_from(*start);
+    if (found->status == simplex::FloatStatus::infeasible) engine.certify_infeasible_row(found->ray_variable);
+    else if (found->status == simplex::FloatStatus::unbounded) engine.certify_ray(found->ray_variable);
+  } else if (!engine.certify_by_refinement(*start)) {
+    repaired = engine.start_from(*start);
+  }
   detail::EngineResult result = engine.run();
 
   Solution solution;
@@ -78,7 +88,7 @@ Solution solve(const model::Model& model, const SolveOptions& options) {
     solution.stats.fell_back = true;
     solution.stats.float_note = found.note;
   } else {
-    solution = run_exact(model, options, &found.basis);
+    solution = run_exact(model, options, &found.basis, &found);
   }
   solution.stats.float_seconds = float_seconds;
   solution.stats.float_iterations = found.iterations;
