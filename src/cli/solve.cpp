@@ -108,6 +108,7 @@ int run_solve(const SolveCommandOptions& options) {
     std::cerr << "plumb: stopped (" << run::describe(s.stop_reason) << ") after " << s.stats.float_iterations
               << " float and " << s.stats.exact_iterations << " exact iterations, during " << s.stats.phase
               << "; nothing is certified and no certificate was written\n";
+    if (options.json) std::cout << present::solve_json(model, result, figures).dump(2) << "\n";
     return exit_stopped;
   }
   if (!result.certified()) {

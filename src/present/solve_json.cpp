@@ -44,7 +44,13 @@ nlohmann::ordered_json solve_json(const model::Model& model, const exact::Certif
                   {"columns", model.column_count()},
                   {"nonzeros", model.matrix.nonzeros()},
                   {"integer_columns", detail::integer_columns(model)}};
-  out["status"] = certificate::to_string(proof.status);
+  if (s.outcome == exact::Outcome::stopped) {
+    out["status"] = "stopped";
+    out["stopped_because"] = run::describe(s.stop_reason);
+    out["stopped_during"] = s.stats.phase;
+  } else {
+    out["status"] = certificate::to_string(proof.status);
+  }
   if (s.outcome == exact::Outcome::optimal) {
     put_number(out["objective"], s.objective);
     put_number(out["objective_constant"], model.objective.constant);
@@ -53,7 +59,7 @@ nlohmann::ordered_json solve_json(const model::Model& model, const exact::Certif
     out["y"] = named(proof.y);
   } else if (s.outcome == exact::Outcome::infeasible) {
     out["farkas_y"] = named(proof.y);
-  } else {
+  } else if (s.outcome == exact::Outcome::unbounded) {
     out["x"] = named(proof.x);
     out["ray"] = named(proof.ray);
   }

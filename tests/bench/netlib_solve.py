@@ -122,6 +122,9 @@ def solve_instance(plumb, model, scratch, time_limit):
         result["certified"] = check.returncode == 0 and json.loads(check.stdout).get("valid") is True
     else:
         result["message"] = stderr_path.read_text(errors="replace").strip().splitlines()[-1:]
+        if code == 3 and stdout_path.stat().st_size:  # stopped at its limit: the figures so far
+            result["stats"] = json.loads(stdout_path.read_text()).get("stats", {})
+            result["peak_mib"] = result["stats"].get("peak_memory_mib", peak)
     for path in (certificate, stdout_path, stderr_path):
         path.unlink(missing_ok=True)
     return result

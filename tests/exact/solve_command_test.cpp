@@ -211,6 +211,17 @@ TEST_F(SolveCommand, LimitStopsWithExitThreeAndNoCertificate) {
   EXPECT_FALSE(fs::exists(certificate));
 }
 
+TEST_F(SolveCommand, StoppedJsonSaysWhyAndGivesTheFiguresSoFar) {
+  Outcome run = plumb("solve corpus/summer-blend.mps --quiet --json --time-limit 1e-9");
+  EXPECT_EQ(run.exit_status, 3);
+  auto json = nlohmann::ordered_json::parse(run.stdout_text);
+  EXPECT_EQ(json["status"], "stopped");
+  EXPECT_EQ(json["stopped_because"], "time limit reached");
+  EXPECT_EQ(json["checked"], false);
+  EXPECT_FALSE(json.contains("x"));
+  EXPECT_TRUE(json["stats"].contains("float_iterations"));
+}
+
 TEST_F(SolveCommand, BadInputOrUsageExitsOne) {
   EXPECT_EQ(plumb("solve no-such-model.mps").exit_status, 1);
   EXPECT_EQ(plumb("solve corpus/summer-blend.mps --method guess").exit_status, 1);

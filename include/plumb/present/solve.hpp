@@ -29,7 +29,8 @@ struct RunFigures {
   double peak_memory_mib = 0;  // peak resident memory of the process so far
 };
 
-// The keys of docs/solving.md: every value in full as a fraction, with its decimal; "stats".
+// The keys of docs/solving.md: every value in full as a fraction, with its decimal; "stats".  A
+// stopped solve gives its status, why and during what it stopped, and the figures so far.
 nlohmann::ordered_json solve_json(const model::Model& model, const exact::CertifiedSolution& result,
                                   const RunFigures& figures);
 
