@@ -184,26 +184,32 @@ TEST(ExactSolve, DualFeasibleStartUsesDualSimplex) {
 }
 
 // Invented: max x + y with x - y <= 1, x, y >= 0 grows without bound along (1, 1).
-TEST(ExactSolve, Unbounded) {
-  auto model = ModelBuilder("unbounded")
-                   .maximise()
-                   .column("x", 1)
-                   .column("y", 1)
-                   .row("a", Terms{{"x", 1}, {"y", -1}}, {}, q(1))
-                   .build();
-  Solution s = solve_exactly(model);
-  EXPECT_EQ(s.outcome, Outcome::unbounded);
+model::Model unbounded_model() {
+  return ModelBuilder("unbounded")
+      .maximise()
+      .column("x", 1)
+      .column("y", 1)
+      .row("a", Terms{{"x", 1}, {"y", -1}}, {}, q(1))
+      .build();
 }
 
 // Invented: x + y <= 1 and x + y >= 3 cannot both hold.
+model::Model infeasible_rows_model() {
+  return ModelBuilder("infeasible")
+      .column("x", 1)
+      .column("y", 1)
+      .row("cap", Terms{{"x", 1}, {"y", 1}}, {}, q(1))
+      .row("need", Terms{{"x", 1}, {"y", 1}}, q(3), {})
+      .build();
+}
+
+TEST(ExactSolve, Unbounded) {
+  Solution s = solve_exactly(unbounded_model());
+  EXPECT_EQ(s.outcome, Outcome::unbounded);
+}
+
 TEST(ExactSolve, InfeasibleRows) {
-  auto model = ModelBuilder("infeasible")
-                   .column("x", 1)
-                   .column("y", 1)
-                   .row("cap", Terms{{"x", 1}, {"y", 1}}, {}, q(1))
-                   .row("need", Terms{{"x", 1}, {"y", 1}}, q(3), {})
-                   .build();
-  Solution s = solve_exactly(model);
+  Solution s = solve_exactly(infeasible_rows_model());
   EXPECT_EQ(s.outcome, Outcome::infeasible);
 }
 
@@ -290,6 +296,20 @@ TEST(ExactSolve, WarmStartRepairsSingularBasis) {
   ASSERT_EQ(s.outcome, Outcome::optimal);
   EXPECT_EQ(s.objective, 3);
   EXPECT_TRUE(s.stats.repaired);
+}
+
+// The hybrid path on the invented infeasible and unbounded models above: the float search's final
+// basis and its hint prove the outcome (the checker accepts the certificate either way).
+TEST(ExactSolve, HybridCertifiesInfeasibleAndUnboundedOutcomes) {
+  auto unbounded = unbounded_model();
+  auto infeasible = infeasible_rows_model();
+  for (const auto* model : {&unbounded, &infeasible}) {
+    CertifiedSolution result = certified_solve(*model);
+    EXPECT_TRUE(result.certified()) << result.verdict.failure;
+    EXPECT_TRUE(result.rejections.empty());
+    EXPECT_EQ(result.solution.outcome, model == &unbounded ? Outcome::unbounded : Outcome::infeasible);
+    EXPECT_EQ(result.solution.stats.exact_iterations, 0) << model->source.path;
+  }
 }
 
 TEST(ExactSolve, HybridFallsBackWhenTheFloatSearchFails) {
