@@ -2,7 +2,9 @@
 
 #include <algorithm>
 #include <cmath>
+#include <functional>
 #include <limits>
+#include <queue>
 
 namespace plumb::simplex::detail {
 
@@ -58,14 +60,10 @@ void remove_from(std::vector<int>& list, int item) {
 
 BasisFactor::Singularity BasisFactor::factorize(int m, const SparseVectors& columns) {
   m_ = m;
-  pivot_row_.clear();
-  pivot_position_.clear();
-  diagonal_.clear();
-  l_columns_.clear();
-  u_rows_.clear();
-  etas_.clear();
-  eta_position_.clear();
-  eta_pivot_.clear();
+  usable_ = false;
+  std::vector<int> pivot_row, pivot_position;
+  std::vector<double> diagonal;
+  SparseVectors l_columns, u_rows;  // per elimination step
 
   Active a;
   a.row_columns.assign(m, {});
@@ -150,15 +148,15 @@ BasisFactor::Singularity BasisFactor::factorize(int m, const SparseVectors& colu
         continue;
       }
       pivot_values[j] = v;
-      u_rows_.push(j, v);
+      u_rows.push(j, v);
       int old = a.column_count(j);
       remove_from(a.column_rows[j], r);
       recount_column(j, old);
     }
-    u_rows_.close();
-    pivot_row_.push_back(r);
-    pivot_position_.push_back(c);
-    diagonal_.push_back(pivot);
+    u_rows.close();
+    pivot_row.push_back(r);
+    pivot_position.push_back(c);
+    diagonal.push_back(pivot);
 
     // Eliminate column c from the other rows.
     for (int i : a.column_rows[c]) {
@@ -177,10 +175,10 @@ BasisFactor::Singularity BasisFactor::factorize(int m, const SparseVectors& colu
           break;
         }
       }
-      l_columns_.push(i, multiplier);
+      l_columns.push(i, multiplier);
       for (std::size_t t = 0; t < cols.size(); ++t) slot[cols[t]] = static_cast<int>(t);
-      for (int p = u_rows_.start[step]; p < u_rows_.start[step + 1]; ++p) {
-        int j = u_rows_.index[p];
+      for (int p = u_rows.start[step]; p < u_rows.start[step + 1]; ++p) {
+        int j = u_rows.index[p];
         double change = -multiplier * pivot_values[j];
         if (slot[j] >= 0) {
           vals[slot[j]] += change;
@@ -197,105 +195,404 @@ BasisFactor::Singularity BasisFactor::factorize(int m, const SparseVectors& colu
       Active::unlink(a.row_head, a.row_next, a.row_prev, i, old_count);
       Active::link(a.row_head, a.row_next, a.row_prev, i, a.row_count(i));
     }
-    l_columns_.close();
-    for (int p = u_rows_.start[step]; p < u_rows_.start[step + 1]; ++p) pivot_values[u_rows_.index[p]] = 0;
+    l_columns.close();
+    for (int p = u_rows.start[step]; p < u_rows.start[step + 1]; ++p) pivot_values[u_rows.index[p]] = 0;
     a.column_rows[c].clear();
     a.row_columns[r].clear();
     a.row_values[r].clear();
   }
 
   Singularity singular;
-  if (static_cast<int>(pivot_row_.size()) < m) {
+  if (static_cast<int>(pivot_row.size()) < m) {
     for (int j = 0; j < m; ++j)
       if (!column_done[j]) singular.positions.push_back(j);
     for (int i = 0; i < m; ++i)
       if (!row_done[i]) singular.rows.push_back(i);
     return singular;
   }
-  build_transposes();
+  install_factors(pivot_row, pivot_position, diagonal, l_columns, u_rows);
   return singular;
 }
 
-void BasisFactor::build_transposes() {
-  // l_rows_: for each row i, the (row of step k, multiplier) pairs of L column k holding row i.
-  std::vector<int> counts(m_ + 1, 0);
-  auto transpose = [&](const SparseVectors& source, SparseVectors& target, auto&& target_of_vector) {
-    counts.assign(m_ + 1, 0);
-    for (int i : source.index) ++counts[i + 1];
-    target.start.assign(m_ + 1, 0);
-    for (int i = 0; i < m_; ++i) target.start[i + 1] = target.start[i] + counts[i + 1];
-    target.index.resize(source.index.size());
-    target.value.resize(source.index.size());
-    std::vector<int> fill(target.start.begin(), target.start.end() - 1);
-    for (int k = 0; k < source.size(); ++k)
-      for (int p = source.start[k]; p < source.start[k + 1]; ++p) {
-        int slot = fill[source.index[p]]++;
-        target.index[slot] = target_of_vector(k);
-        target.value[slot] = source.value[p];
-      }
+void SparseVector::rebuild_index() {
+  index.clear();
+  for (int i = 0; i < static_cast<int>(values.size()); ++i)
+    if (values[i] != 0) index.push_back(i);
+}
+
+void ListPool::reset(int lists, const std::vector<int>& room) {
+  start_.resize(lists);
+  size_.assign(lists, 0);
+  room_ = room;
+  int total = 0;
+  for (int l = 0; l < lists; ++l) {
+    start_[l] = total;
+    total += room[l];
+  }
+  index_.resize(total);
+  value_.resize(total);
+}
+
+void ListPool::append(int list, int i, double v) {
+  if (size_[list] == room_[list]) {
+    const int moved = static_cast<int>(index_.size());
+    room_[list] = 2 * room_[list] + 4;
+    index_.resize(moved + room_[list]);
+    value_.resize(moved + room_[list]);
+    std::copy_n(index_.begin() + start_[list], size_[list], index_.begin() + moved);
+    std::copy_n(value_.begin() + start_[list], size_[list], value_.begin() + moved);
+    start_[list] = moved;
+  }
+  const int slot = start_[list] + size_[list]++;
+  index_[slot] = i;
+  value_[slot] = v;
+}
+
+void ListPool::remove(int list, int i) {
+  const int begin = start_[list], last = begin + size_[list] - 1;
+  for (int slot = begin; slot <= last; ++slot)
+    if (index_[slot] == i) {
+      index_[slot] = index_[last];
+      value_[slot] = value_[last];
+      --size_[list];
+      return;
+    }
+}
+
+// The steps' factors are re-indexed by pivot row (for L and U) so that Forrest-Tomlin updates
+// can reorder U without touching L.
+void BasisFactor::install_factors(const std::vector<int>& pivot_row, const std::vector<int>& pivot_position,
+                                  const std::vector<double>& diagonal, const SparseVectors& l_columns,
+                                  const SparseVectors& u_rows) {
+  const int m = m_;
+  position_of_row_.assign(m, -1);
+  row_of_position_.assign(m, -1);
+  diagonal_.assign(m, 0);
+  u_order_ = pivot_row;
+  u_rank_.assign(m, -1);
+  l_order_.clear();
+  lt_order_.clear();
+  for (int k = 0; k < m; ++k) {
+    const int r = pivot_row[k];
+    position_of_row_[r] = pivot_position[k];
+    row_of_position_[pivot_position[k]] = r;
+    diagonal_[r] = diagonal[k];
+    u_rank_[r] = k;
+    if (l_columns.start[k + 1] > l_columns.start[k]) l_order_.push_back(r);
+  }
+
+  // L by pivot row, and its transpose.
+  std::vector<int> step_of_row(m);
+  for (int k = 0; k < m; ++k) step_of_row[pivot_row[k]] = k;
+  l_columns_.clear();
+  for (int r = 0; r < m; ++r) {
+    const int k = step_of_row[r];
+    for (int p = l_columns.start[k]; p < l_columns.start[k + 1]; ++p) l_columns_.push(l_columns.index[p], l_columns.value[p]);
+    l_columns_.close();
+  }
+  l_nonzeros_ = l_columns_.index.size();
+  std::vector<int> counts(m, 0);
+  for (int i : l_columns_.index) ++counts[i];
+  l_rows_.start.assign(m + 1, 0);
+  for (int i = 0; i < m; ++i) l_rows_.start[i + 1] = l_rows_.start[i] + counts[i];
+  l_rows_.index.resize(l_nonzeros_);
+  l_rows_.value.resize(l_nonzeros_);
+  for (int k = m - 1; k >= 0; --k)
+    if (counts[pivot_row[k]] > 0) lt_order_.push_back(pivot_row[k]);
+  std::vector<int> fill(l_rows_.start.begin(), l_rows_.start.end() - 1);
+  for (int r = 0; r < m; ++r)
+    for (int p = l_columns_.start[r]; p < l_columns_.start[r + 1]; ++p) {
+      const int slot = fill[l_columns_.index[p]]++;
+      l_rows_.index[slot] = r;
+      l_rows_.value[slot] = l_columns_.value[p];
+    }
+
+  // U by row and by position, with a little room for the updates' spikes.
+  std::vector<int> row_room(m), column_room(m, 4);
+  for (int k = 0; k < m; ++k) {
+    row_room[pivot_row[k]] = u_rows.start[k + 1] - u_rows.start[k] + 4;
+    for (int p = u_rows.start[k]; p < u_rows.start[k + 1]; ++p) ++column_room[u_rows.index[p]];
+  }
+  u_rows_.reset(m, row_room);
+  u_columns_.reset(m, column_room);
+  for (int k = 0; k < m; ++k)
+    for (int p = u_rows.start[k]; p < u_rows.start[k + 1]; ++p) {
+      u_rows_.append(pivot_row[k], u_rows.index[p], u_rows.value[p]);
+      u_columns_.append(u_rows.index[p], pivot_row[k], u_rows.value[p]);
+    }
+  u_nonzeros_ = factored_nonzeros_ = u_rows.index.size();
+
+  r_etas_.clear();
+  r_row_.clear();
+  updates_ = 0;
+  usable_ = true;
+
+  spike_.reset(m);
+  dense_.index.clear();
+  solved_.reset(m);
+  visited_.assign(m, 0);
+  stack_.resize(m);
+  next_edge_.resize(m);
+  row_work_.assign(m, 0);
+}
+
+bool BasisFactor::refactor_due() const {
+  return !usable_ || updates_ >= update_limit ||
+         u_nonzeros_ + r_etas_.index.size() > 2 * (l_nonzeros_ + factored_nonzeros_ + m_);
+}
+
+bool BasisFactor::sparse_enough(const SparseVector& x) const { return x.count() <= sparse_density * m_; }
+
+template <class Neighbours>
+bool BasisFactor::reach(SparseVector& x, Neighbours&& neighbours) const {
+  const std::size_t limit = static_cast<std::size_t>(sparse_density * m_);
+  scratch_index_.clear();  // finished nodes, in postorder
+  std::size_t reached = 0;
+  auto give_up = [&](int depth) {
+    for (int v : scratch_index_) visited_[v] = 0;
+    for (int d = 0; d <= depth; ++d) visited_[stack_[d]] = 0;
+    return false;
   };
-  transpose(l_columns_, l_rows_, [&](int k) { return pivot_row_[k]; });
-  transpose(u_rows_, u_columns_, [&](int k) { return pivot_row_[k]; });
+  for (int root : x.index) {
+    if (visited_[root]) continue;
+    if (++reached > limit) return give_up(-1);
+    visited_[root] = 1;
+    int depth = 0;
+    stack_[0] = root;
+    next_edge_[0] = 0;
+    while (depth >= 0) {
+      const int v = stack_[depth];
+      const auto [edges, degree] = neighbours(v);
+      int e = next_edge_[depth];
+      while (e < degree && visited_[edges[e]]) ++e;
+      if (e < degree) {
+        next_edge_[depth] = e + 1;
+        const int w = edges[e];
+        if (++reached > limit) return give_up(depth);
+        visited_[w] = 1;
+        stack_[++depth] = w;
+        next_edge_[depth] = 0;
+      } else {
+        scratch_index_.push_back(v);
+        --depth;
+      }
+    }
+  }
+  x.index.assign(scratch_index_.rbegin(), scratch_index_.rend());
+  for (int v : x.index) visited_[v] = 0;
+  return true;
+}
+
+// x[i] -= value * x[r] for the (i, value) pairs of lists[r], each r after every r' whose list
+// holds r: through the reached nodes in topological order, or through all of dense_order.
+void BasisFactor::eliminate(SparseVector& x, const SparseVectors& lists, const std::vector<int>& dense_order) const {
+  auto apply = [&](int r, auto&& on_entry) {
+    const double v = x.values[r];
+    if (v == 0) return;
+    for (int p = lists.start[r]; p < lists.start[r + 1]; ++p) {
+      x.values[lists.index[p]] -= lists.value[p] * v;
+      on_entry(lists.index[p]);
+    }
+  };
+  auto edges = [&](int r) { return std::pair{lists.index.data() + lists.start[r], lists.start[r + 1] - lists.start[r]}; };
+  if (sparse_enough(x) && reach(x, edges)) {
+    for (int r : x.index) apply(r, [](int) {});
+    return;
+  }
+  for (int i : x.index) visited_[i] = 1;
+  for (int r : dense_order)
+    apply(r, [&](int i) {
+      if (!visited_[i]) visited_[i] = 1, x.index.push_back(i);
+    });
+  for (int i : x.index) visited_[i] = 0;
+}
+
+void BasisFactor::solve_l(SparseVector& x) const { eliminate(x, l_columns_, l_order_); }
+
+void BasisFactor::solve_lt(SparseVector& x) const { eliminate(x, l_rows_, lt_order_); }
+
+// R in order; an update's row is listed when it turns nonzero (visited_ marks the listed rows).
+void BasisFactor::solve_r(SparseVector& x) const {
+  if (r_row_.empty()) return;
+  for (int i : x.index) visited_[i] = 1;
+  for (std::size_t e = 0; e < r_row_.size(); ++e) {
+    double s = 0;
+    for (int p = r_etas_.start[e]; p < r_etas_.start[e + 1]; ++p) s += r_etas_.value[p] * x.values[r_etas_.index[p]];
+    if (s == 0) continue;
+    const int r = r_row_[e];
+    x.values[r] -= s;
+    if (!visited_[r]) visited_[r] = 1, x.index.push_back(r);
+  }
+  for (int i : x.index) visited_[i] = 0;
+}
+
+void BasisFactor::solve_rt(SparseVector& x) const {
+  if (r_row_.empty()) return;
+  for (int i : x.index) visited_[i] = 1;
+  for (int e = static_cast<int>(r_row_.size()) - 1; e >= 0; --e) {
+    const double v = x.values[r_row_[e]];
+    if (v == 0) continue;
+    for (int p = r_etas_.start[e]; p < r_etas_.start[e + 1]; ++p) {
+      const int i = r_etas_.index[p];
+      x.values[i] -= r_etas_.value[p] * v;
+      if (!visited_[i]) visited_[i] = 1, x.index.push_back(i);
+    }
+  }
+  for (int i : x.index) visited_[i] = 0;
+}
+
+// A triangular solve with U or U^T.  Node v's own equation fixes the unknown key[v] (nodes are
+// rows and keys positions for U, the other way round for U^T); its value then leaves the nodes
+// in lists[key[v]].  The result goes to the key space through solved_, without a permutation.
+template <class Pivot, class DenseOrder>
+void BasisFactor::substitute(SparseVector& x, const ListPool& lists, const std::vector<int>& key, Pivot&& pivot,
+                             DenseOrder&& dense_order) const {
+  auto solve = [&](int v) {
+    double value = x.values[v];
+    if (value == 0) return;
+    x.values[v] = 0;
+    value /= pivot(v);
+    const int k = key[v];
+    solved_.values[k] = value;
+    solved_.index.push_back(k);
+    const int* nodes = lists.indices(k);
+    const double* entries = lists.values(k);
+    for (int t = 0, size = lists.size(k); t < size; ++t) x.values[nodes[t]] -= entries[t] * value;
+  };
+  auto edges = [&](int v) { return std::pair{lists.indices(key[v]), lists.size(key[v])}; };
+  if (sparse_enough(x) && reach(x, edges)) {
+    for (int v : x.index) solve(v);
+  } else {
+    dense_order(solve);
+  }
+  x.values.swap(solved_.values);  // x was zeroed as it was solved
+  x.index.swap(solved_.index);
+  solved_.index.clear();
+}
+
+void BasisFactor::solve_u(SparseVector& x) const {
+  substitute(x, u_columns_, position_of_row_, [&](int r) { return diagonal_[r]; }, [&](auto&& solve) {
+    for (auto k = u_order_.rbegin(); k != u_order_.rend(); ++k)
+      if (*k >= 0) solve(*k);
+  });
+}
+
+void BasisFactor::solve_ut(SparseVector& x) const {
+  substitute(x, u_rows_, row_of_position_, [&](int c) { return diagonal_[row_of_position_[c]]; }, [&](auto&& solve) {
+    for (int r : u_order_)
+      if (r >= 0) solve(position_of_row_[r]);
+  });
+}
+
+void BasisFactor::ftran(SparseVector& x) const {
+  solve_l(x);
+  solve_r(x);
+  solve_u(x);
+}
+
+void BasisFactor::ftran_entering(SparseVector& x) {
+  solve_l(x);
+  solve_r(x);
+  spike_.clear();
+  for (int i : x.index)
+    if (x.values[i] != 0) spike_.values[i] = x.values[i], spike_.index.push_back(i);
+  solve_u(x);
+}
+
+void BasisFactor::btran(SparseVector& x) const {
+  solve_ut(x);
+  solve_rt(x);
+  solve_lt(x);
+}
+
+template <class Solve>
+void BasisFactor::solve_dense(std::vector<double>& x, Solve&& solve) const {
+  dense_.values.swap(x);
+  dense_.rebuild_index();
+  solve(dense_);
+  dense_.values.swap(x);
+  dense_.index.clear();
 }
 
 void BasisFactor::ftran(std::vector<double>& x) const {
-  for (int k = 0; k < m_; ++k) {
-    double xr = x[pivot_row_[k]];
-    if (xr == 0) continue;
-    for (int p = l_columns_.start[k]; p < l_columns_.start[k + 1]; ++p) x[l_columns_.index[p]] -= l_columns_.value[p] * xr;
-  }
-  work_.resize(m_);
-  for (int k = m_ - 1; k >= 0; --k) {
-    int c = pivot_position_[k];
-    double z = x[pivot_row_[k]];
-    if (z != 0) {
-      z /= diagonal_[k];
-      for (int p = u_columns_.start[c]; p < u_columns_.start[c + 1]; ++p) x[u_columns_.index[p]] -= u_columns_.value[p] * z;
-    }
-    work_[c] = z;
-  }
-  x.swap(work_);
-  for (int e = 0; e < etas_.size(); ++e) {
-    int p = eta_position_[e];
-    double xp = x[p];
-    if (xp == 0) continue;
-    xp /= eta_pivot_[e];
-    x[p] = xp;
-    for (int q = etas_.start[e]; q < etas_.start[e + 1]; ++q) x[etas_.index[q]] -= etas_.value[q] * xp;
-  }
+  solve_dense(x, [this](SparseVector& v) { ftran(v); });
 }
 
 void BasisFactor::btran(std::vector<double>& x) const {
-  for (int e = etas_.size() - 1; e >= 0; --e) {
-    int p = eta_position_[e];
-    double s = x[p];
-    for (int q = etas_.start[e]; q < etas_.start[e + 1]; ++q) s -= etas_.value[q] * x[etas_.index[q]];
-    x[p] = s / eta_pivot_[e];
-  }
-  work_.resize(m_);
-  for (int k = 0; k < m_; ++k) {
-    double w = x[pivot_position_[k]];
-    if (w != 0) {
-      w /= diagonal_[k];
-      for (int p = u_rows_.start[k]; p < u_rows_.start[k + 1]; ++p) x[u_rows_.index[p]] -= u_rows_.value[p] * w;
-    }
-    work_[pivot_row_[k]] = w;
-  }
-  x.swap(work_);
-  for (int k = m_ - 1; k >= 0; --k) {
-    int i = pivot_row_[k];
-    double yi = x[i];
-    if (yi == 0) continue;
-    for (int p = l_rows_.start[i]; p < l_rows_.start[i + 1]; ++p) x[l_rows_.index[p]] -= l_rows_.value[p] * yi;
-  }
+  solve_dense(x, [this](SparseVector& v) { btran(v); });
 }
 
-void BasisFactor::update(int position, const std::vector<double>& column) {
-  for (int i = 0; i < m_; ++i)
-    if (i != position && column[i] != 0) etas_.push(i, column[i]);
-  etas_.close();
-  eta_position_.push_back(position);
-  eta_pivot_.push_back(column[position]);
+// Forrest & Tomlin (1972): column p of U becomes the spike; the row paired with p moves to the
+// end of the pivot order, and its entries left of the new diagonal are eliminated by the rows
+// now before it, in pivot order (that elimination is the new row transformation).  The new
+// pivot must equal alpha times the old one, as the determinant changes by the factor alpha.
+bool BasisFactor::update(int position, double alpha) {
+  const int t = row_of_position_[position];
+  const double old_pivot = diagonal_[t];
+
+  // Column p leaves U.
+  const int* rows = u_columns_.indices(position);
+  for (int s = 0, size = u_columns_.size(position); s < size; ++s) u_rows_.remove(rows[s], position);
+  u_nonzeros_ -= u_columns_.size(position);
+  u_columns_.clear(position);
+
+  // Row t leaves U into row_work_ (by position); its positions queue by the rank of their rows.
+  std::priority_queue<int, std::vector<int>, std::greater<int>> queue;
+  const int* positions = u_rows_.indices(t);
+  const double* values = u_rows_.values(t);
+  for (int s = 0, size = u_rows_.size(t); s < size; ++s) {
+    const int j = positions[s];
+    row_work_[j] = values[s];
+    visited_[j] = 1;
+    queue.push(u_rank_[row_of_position_[j]]);
+    u_columns_.remove(j, t);
+  }
+  u_nonzeros_ -= u_rows_.size(t);
+  u_rows_.clear(t);
+
+  double pivot = spike_.values[t];
+  while (!queue.empty()) {
+    const int r = u_order_[queue.top()];
+    queue.pop();
+    const int j = position_of_row_[r];
+    const double w = row_work_[j];
+    row_work_[j] = 0;
+    visited_[j] = 0;
+    if (std::abs(w) <= drop_tolerance) continue;
+    const double multiplier = w / diagonal_[r];
+    r_etas_.push(r, multiplier);
+    pivot -= multiplier * spike_.values[r];
+    const int* row_positions = u_rows_.indices(r);
+    const double* row_values = u_rows_.values(r);
+    for (int s = 0, size = u_rows_.size(r); s < size; ++s) {
+      const int k = row_positions[s];
+      if (!visited_[k]) visited_[k] = 1, queue.push(u_rank_[row_of_position_[k]]);
+      row_work_[k] -= multiplier * row_values[s];
+    }
+  }
+  if (static_cast<int>(r_etas_.index.size()) > r_etas_.start.back()) {
+    r_etas_.close();
+    r_row_.push_back(t);
+  }
+
+  // The spike becomes column p; row t moves to the end of the order with the new pivot.
+  for (int i : spike_.index) {
+    const double v = spike_.values[i];
+    if (i == t || std::abs(v) <= drop_tolerance) continue;
+    u_columns_.append(position, i, v);
+    u_rows_.append(i, position, v);
+    ++u_nonzeros_;
+  }
+  diagonal_[t] = pivot;
+  u_order_[u_rank_[t]] = -1;
+  u_rank_[t] = static_cast<int>(u_order_.size());
+  u_order_.push_back(t);
+  ++updates_;
+
+  const double expected = alpha * old_pivot;
+  if (!(std::abs(pivot) > absolute_tolerance) || std::abs(pivot - expected) > update_tolerance * std::abs(pivot))
+    usable_ = false;
+  return usable_;
 }
 
 }  // namespace plumb::simplex::detail

@@ -23,9 +23,10 @@ Engine::Engine(const LpData& lp, const FloatOptions& options)
   head_.resize(m_);
   weight_.assign(m_, 1);
   rejected_.assign(m_, 0);
-  rho_.assign(m_, 0);
-  column_.assign(m_, 0);
-  tau_.assign(m_, 0);
+  rho_.reset(m_);
+  column_.reset(m_);
+  tau_.reset(m_);
+  flips_.reset(m_);
   work_.assign(m_, 0);
   alpha_row_.assign(total, 0);
   in_row_.assign(total, 0);
@@ -158,13 +159,13 @@ void Engine::compute_dual() {
     for (int p = lp_.by_column.start[j]; p < lp_.by_column.start[j + 1]; ++p) s -= lp_.by_column.value[p] * work_[lp_.by_column.index[p]];
     d_[j] = s;
   }
-  for (int i = 0; i < m_; ++i) d_[n_ + i] = status_[n_ + i] == VarStatus::basic ? 0 : work_[i];
+  // A logical's column is -e_i; its cost is zero unless a shift has moved it.
+  for (int i = 0; i < m_; ++i) d_[n_ + i] = status_[n_ + i] == VarStatus::basic ? 0 : cost_[n_ + i] + work_[i];
 }
 
 void Engine::compute_pivot_row() {
   // Row-wise through the nonzeros of rho when it is sparse, else column by column.
-  int nonzeros = 0;
-  for (int i = 0; i < m_; ++i) nonzeros += rho_[i] != 0;
+  const int nonzeros = rho_.count();
   auto touch = [&](int j, double v) {
     if (!in_row_[j]) {
       in_row_[j] = 1;
@@ -173,7 +174,7 @@ void Engine::compute_pivot_row() {
     alpha_row_[j] += v;
   };
   if (nonzeros < 0.2 * m_) {
-    for (int i = 0; i < m_; ++i) {
+    for (int i : rho_.index) {
       double r = rho_[i];
       if (r == 0) continue;
       for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1]; ++p) {
@@ -189,7 +190,7 @@ void Engine::compute_pivot_row() {
       if (s != 0) touch(j, s);
     }
   }
-  for (int i = 0; i < m_; ++i)
+  for (int i : rho_.index)
     if (rho_[i] != 0 && position_[n_ + i] < 0) touch(n_ + i, -rho_[i]);
 }
 
@@ -253,8 +254,7 @@ bool Engine::polls_say_stop(const char* phase) {
 // Basis change: the variable at position r leaves (its status and value already set by the
 // caller), `entering` takes its place; column_ holds B^-1 a_entering.
 void Engine::pivot(int r, int entering, double primal_step) {
-  for (int k = 0; k < m_; ++k)
-    if (column_[k] != 0) x_[head_[k]] -= primal_step * column_[k];
+  for (int k : column_.index) x_[head_[k]] -= primal_step * column_[k];
   int leaving = head_[r];
   double entering_value = x_[entering] + primal_step;
   position_[leaving] = -1;
@@ -263,7 +263,7 @@ void Engine::pivot(int r, int entering, double primal_step) {
   status_[entering] = VarStatus::basic;
   x_[entering] = entering_value;
   d_[entering] = 0;
-  factor_.update(r, column_);
+  factor_.update(r, column_[r]);  // a failed update makes refactor_due() true
   ++iterations_;
 }
 
@@ -272,7 +272,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
   while (true) {
     if (iterations_ >= iteration_limit_) return LoopEnd::limit;
     if (polls_say_stop(phase)) return LoopEnd::stopped;
-    if (factor_.update_count() >= refactor_interval) {
+    if (factor_.refactor_due()) {
       if (refresh()) return LoopEnd::restart;
       fresh = true;
     }
@@ -303,8 +303,8 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     const int leaving = head_[r];
     const bool to_lower = x_[leaving] < lower_[leaving];
     const double delta = to_lower ? x_[leaving] - lower_[leaving] : x_[leaving] - upper_[leaving];
-    std::fill(rho_.begin(), rho_.end(), 0.0);
-    rho_[r] = 1;
+    rho_.clear();
+    rho_.add(r, 1.0);
     factor_.btran(rho_);
     compute_pivot_row();
 
@@ -340,9 +340,9 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
       return LoopEnd::infeasible;
     }
     const int q = step.entering;
-    std::fill(column_.begin(), column_.end(), 0.0);
-    for_column(q, [&](int i, double v) { column_[i] = v; });
-    factor_.ftran(column_);
+    column_.clear();
+    for_column(q, [&](int i, double v) { column_.add(i, v); });
+    factor_.ftran_entering(column_);
     const double alpha = column_[r];
     if (std::abs(alpha - alpha_row_[q]) > 1e-7 * (1 + std::abs(alpha)) || std::abs(alpha) < 1e-9) {
       clear_pivot_row();
@@ -371,24 +371,24 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
 
     // Bound flips of the passed breakpoints.
     if (!step.flips.empty()) {
-      std::fill(work_.begin(), work_.end(), 0.0);
+      flips_.clear();
       for (int j : step.flips) {
         VarStatus other = status_[j] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower;
         double change = (other == VarStatus::at_upper ? upper_[j] : lower_[j]) - x_[j];
         set_nonbasic(j, other);
-        for_column(j, [&](int i, double v) { work_[i] += v * change; });
+        for_column(j, [&](int i, double v) { flips_.add(i, v * change); });
       }
-      factor_.ftran(work_);
-      for (int k = 0; k < m_; ++k) x_[head_[k]] -= work_[k];
+      factor_.ftran(flips_);
+      for (int k : flips_.index) x_[head_[k]] -= flips_[k];
     }
     clear_pivot_row();
 
     // Dual steepest-edge weights (Forrest & Goldfarb 1992, update (30)), tau = B^-1 rho.
     double rho_norm = 0;
-    for (int i = 0; i < m_; ++i) rho_norm += rho_[i] * rho_[i];
-    tau_ = rho_;
+    for (int i : rho_.index) rho_norm += rho_[i] * rho_[i];
+    tau_.copy_from(rho_);
     factor_.ftran(tau_);
-    for (int k = 0; k < m_; ++k) {
+    for (int k : column_.index) {
       if (k == r || column_[k] == 0) continue;
       double kappa = column_[k] / alpha;
       weight_[k] = std::max(weight_[k] + kappa * (kappa * rho_norm - 2 * tau_[k]), 1e-4);
@@ -407,7 +407,7 @@ Engine::LoopEnd Engine::primal_loop() {
   while (true) {
     if (iterations_ >= iteration_limit_) return LoopEnd::limit;
     if (polls_say_stop("primal clean-up")) return LoopEnd::stopped;
-    if (factor_.update_count() >= refactor_interval) {
+    if (factor_.refactor_due()) {
       if (refresh() || count_primal_infeasible() > 0) return LoopEnd::restart;
     }
     // Pricing: the largest dual infeasibility (Dantzig's rule on the scaled problem).
@@ -419,11 +419,11 @@ Engine::LoopEnd Engine::primal_loop() {
     }
     if (q < 0) return LoopEnd::optimal;
     const double direction = d_[q] < 0 ? 1 : -1;
-    std::fill(column_.begin(), column_.end(), 0.0);
-    for_column(q, [&](int i, double v) { column_[i] = v; });
-    factor_.ftran(column_);
+    column_.clear();
+    for_column(q, [&](int i, double v) { column_.add(i, v); });
+    factor_.ftran_entering(column_);
     primal_candidates_.clear();
-    for (int k = 0; k < m_; ++k) {
+    for (int k : column_.index) {
       double rate = -direction * column_[k];  // change of the basic variable per unit step
       if (std::abs(rate) <= pivot_tolerance) continue;
       int v = head_[k];
@@ -440,15 +440,15 @@ Engine::LoopEnd Engine::primal_loop() {
       // The entering variable reaches its other bound first: a bound flip, no basis change.
       VarStatus other = status_[q] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower;
       set_nonbasic(q, other);
-      for (int k = 0; k < m_; ++k) x_[head_[k]] -= direction * range * column_[k];
+      for (int k : column_.index) x_[head_[k]] -= direction * range * column_[k];
       ++iterations_;
       continue;
     }
     const int r = step.leaving;
     const int leaving = head_[r];
     const double alpha = column_[r];
-    std::fill(rho_.begin(), rho_.end(), 0.0);
-    rho_[r] = 1;
+    rho_.clear();
+    rho_.add(r, 1.0);
     factor_.btran(rho_);
     compute_pivot_row();
     if (std::abs(alpha - alpha_row_[q]) > 1e-7 * (1 + std::abs(alpha))) {

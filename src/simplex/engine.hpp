@@ -37,7 +37,6 @@ class Engine {
   double primal_tolerance = 1e-7;
   double dual_tolerance = 1e-7;
   double pivot_tolerance = 1e-7;
-  int refactor_interval = 100;
 
  private:
   enum class LoopEnd { optimal, infeasible, unbounded, stopped, limit, restart };
@@ -88,7 +87,8 @@ class Engine {
   BasisFactor factor_;
   bool repaired_ = false;
 
-  std::vector<double> rho_, column_, tau_, work_;
+  SparseVector rho_, column_, tau_, flips_;  // B^-T e_r, B^-1 a_q, B^-1 rho, B^-1 (flipped columns)
+  std::vector<double> work_;
   std::vector<double> alpha_row_;
   std::vector<int> row_touched_;
   std::vector<char> in_row_;
