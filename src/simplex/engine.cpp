@@ -23,6 +23,7 @@ Engine::Engine(const LpData& lp, const FloatOptions& options)
   head_.resize(m_);
   weight_.assign(m_, 1);
   rejected_.assign(m_, 0);
+  listed_.assign(m_, 0);
   rho_.reset(m_);
   column_.reset(m_);
   tau_.reset(m_);
@@ -136,6 +137,24 @@ bool Engine::refresh() {
   return repaired_;
 }
 
+bool Engine::refresh_dual_feasible() {
+  bool repaired = refresh();
+  if (remove_dual_infeasibilities(shift_limit) > shift_limit) {
+    dual_feasibility_lost_ = true;
+    return true;
+  }
+  return repaired;
+}
+
+void Engine::raise_stability() {
+  if (stability_level_ >= 3) return;
+  ++stability_level_;
+  static constexpr double lu_threshold[] = {0.1, 0.3, 0.6, 0.9};
+  static constexpr double pivot_size[] = {1e-7, 1e-6, 1e-5, 1e-5};
+  factor_.pivot_threshold = lu_threshold[stability_level_];
+  pivot_tolerance = pivot_size[stability_level_];
+}
+
 void Engine::compute_primal() {
   std::fill(work_.begin(), work_.end(), 0.0);
   for (int j = 0; j < m_ + n_; ++j) {
@@ -145,6 +164,23 @@ void Engine::compute_primal() {
   }
   factor_.ftran(work_);
   for (int k = 0; k < m_; ++k) x_[head_[k]] = work_[k];
+  for (int k : infeasible_) listed_[k] = 0;
+  infeasible_.clear();
+  for (int k = 0; k < m_; ++k) note_moved(k);
+}
+
+void Engine::note_moved(int k) {
+  if (!listed_[k] && primal_infeasibility(head_[k]) > 0) {
+    listed_[k] = 1;
+    infeasible_.push_back(k);
+  }
+}
+
+void Engine::move_basics(const SparseVector& change, double factor) {
+  for (int k : change.index) {
+    x_[head_[k]] -= factor * change[k];
+    note_moved(k);
+  }
 }
 
 void Engine::compute_dual() {
@@ -254,7 +290,7 @@ bool Engine::polls_say_stop(const char* phase) {
 // Basis change: the variable at position r leaves (its status and value already set by the
 // caller), `entering` takes its place; column_ holds B^-1 a_entering.
 void Engine::pivot(int r, int entering, double primal_step) {
-  for (int k : column_.index) x_[head_[k]] -= primal_step * column_[k];
+  move_basics(column_, primal_step);
   int leaving = head_[r];
   double entering_value = x_[entering] + primal_step;
   position_[leaving] = -1;
@@ -262,6 +298,7 @@ void Engine::pivot(int r, int entering, double primal_step) {
   position_[entering] = r;
   status_[entering] = VarStatus::basic;
   x_[entering] = entering_value;
+  note_moved(r);
   d_[entering] = 0;
   factor_.update(r, column_[r]);  // a failed update makes refactor_due() true
   ++iterations_;
@@ -273,18 +310,25 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     if (iterations_ >= iteration_limit_) return LoopEnd::limit;
     if (polls_say_stop(phase)) return LoopEnd::stopped;
     if (factor_.refactor_due()) {
-      if (refresh()) return LoopEnd::restart;
+      if (refresh_dual_feasible()) return LoopEnd::restart;
       fresh = true;
     }
     // Pricing: dual steepest edge (Forrest & Goldfarb, "Steepest-edge simplex algorithms for
     // linear programming", Math. Programming 57, 1992): largest infeasibility^2 / weight.
-    // Rows whose pivot proved unusable on fresh factors sit out until the next factorization.
+    // Only the listed positions can be infeasible; those found feasible leave the list.  Rows
+    // whose pivot proved unusable on fresh factors sit out until the next factorization.
     int r = -1;
     double best = 0;
     bool any_rejected = false;
-    for (int k = 0; k < m_; ++k) {
+    for (std::size_t t = 0; t < infeasible_.size(); ++t) {
+      const int k = infeasible_[t];
       double infeasibility = primal_infeasibility(head_[k]);
-      if (infeasibility <= 0) continue;
+      if (infeasibility <= 0) {
+        listed_[k] = 0;
+        infeasible_[t--] = infeasible_.back();
+        infeasible_.pop_back();
+        continue;
+      }
       if (rejected_[k]) {
         any_rejected = true;
         continue;
@@ -294,7 +338,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     }
     if (r < 0 && any_rejected) {
       if (factor_.update_count() == 0) throw NumericalTrouble{"no usable pivot in any infeasible row"};
-      if (refresh()) return LoopEnd::restart;
+      if (refresh_dual_feasible()) return LoopEnd::restart;
       fresh = true;
       continue;
     }
@@ -332,7 +376,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     if (step.entering < 0) {
       clear_pivot_row();
       if (!fresh && factor_.update_count() > 0) {
-        if (refresh()) return LoopEnd::restart;
+        if (refresh_dual_feasible()) return LoopEnd::restart;
         fresh = true;
         continue;
       }
@@ -348,7 +392,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
       clear_pivot_row();
       if (++trouble_ > 1000) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
       if (factor_.update_count() > 0) {
-        if (refresh()) return LoopEnd::restart;
+        if (refresh_dual_feasible()) return LoopEnd::restart;
       } else {
         rejected_[r] = 1;
       }
@@ -379,7 +423,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
         for_column(j, [&](int i, double v) { flips_.add(i, v * change); });
       }
       factor_.ftran(flips_);
-      for (int k : flips_.index) x_[head_[k]] -= flips_[k];
+      move_basics(flips_, 1);
     }
     clear_pivot_row();
 
@@ -407,9 +451,9 @@ Engine::LoopEnd Engine::primal_loop() {
   while (true) {
     if (iterations_ >= iteration_limit_) return LoopEnd::limit;
     if (polls_say_stop("primal clean-up")) return LoopEnd::stopped;
-    if (factor_.refactor_due()) {
-      if (refresh() || count_primal_infeasible() > 0) return LoopEnd::restart;
-    }
+    // Small primal infeasibilities that fresh factors show are left to the dual simplex after
+    // this loop; the Harris test treats them as zero distance meanwhile.
+    if (factor_.refactor_due() && refresh()) return LoopEnd::restart;
     // Pricing: the largest dual infeasibility (Dantzig's rule on the scaled problem).
     int q = -1;
     double best = dual_tolerance;
@@ -440,7 +484,7 @@ Engine::LoopEnd Engine::primal_loop() {
       // The entering variable reaches its other bound first: a bound flip, no basis change.
       VarStatus other = status_[q] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower;
       set_nonbasic(q, other);
-      for (int k : column_.index) x_[head_[k]] -= direction * range * column_[k];
+      move_basics(column_, direction * range);
       ++iterations_;
       continue;
     }
@@ -455,7 +499,7 @@ Engine::LoopEnd Engine::primal_loop() {
       clear_pivot_row();
       if (++trouble_ > 200) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
       if (factor_.update_count() > 0) {
-        if (refresh() || count_primal_infeasible() > 0) return LoopEnd::restart;
+        if (refresh()) return LoopEnd::restart;
         continue;
       }
     }
@@ -503,28 +547,35 @@ void Engine::perturb_costs() {
   // Random perturbation in the direction that keeps each reduced cost feasible (Koberstein
   // 2005, section 6.2.2; Maros 2003, section 9.6.2), removed before the answer is given.
   std::uniform_real_distribution<double> unit(0.0, 1.0);
+  // Only nonbasic costs move: a basic cost would change every reduced cost through the duals.
   for (int j = 0; j < n_; ++j) {
-    if (fixed(j) || (lower_[j] == -inf_ && upper_[j] == inf_)) continue;
+    if (status_[j] == VarStatus::basic || fixed(j) || (lower_[j] == -inf_ && upper_[j] == inf_)) continue;
     double size = 1e-6 * (1 + std::abs(cost_[j])) * (1 + unit(random_));
-    bool down = status_[j] == VarStatus::at_upper || (status_[j] == VarStatus::basic && lower_[j] == -inf_);
-    cost_[j] += down ? -size : size;
+    cost_[j] += status_[j] == VarStatus::at_upper ? -size : size;
   }
   costs_modified_ = true;
 }
 
-// Small dual infeasibilities left by tolerances are removed by shifting costs (Koberstein 2005,
-// section 6.2.2), to be undone with the perturbation; returns the largest infeasibility, and
-// shifts nothing when it exceeds `limit`.
-double Engine::shift_to_dual_feasible(double limit) {
+// Small dual infeasibilities left by tolerances are removed (Koberstein 2005, section 6.2.2):
+// boxed variables move to their other bound, the others' costs are shifted, to be undone with
+// the perturbation.  Returns the largest infeasibility and changes nothing when it exceeds `limit`.
+double Engine::remove_dual_infeasibilities(double limit) {
   double largest = 0;
   for (int j = 0; j < m_ + n_; ++j) largest = std::max(largest, dual_infeasibility(j));
   if (largest > limit) return largest;
-  for (int j = 0; j < m_ + n_; ++j)
-    if (dual_infeasibility(j) > dual_tolerance) {
+  bool flipped = false;
+  for (int j = 0; j < m_ + n_; ++j) {
+    if (dual_infeasibility(j) <= dual_tolerance) continue;
+    if (boxed(j)) {
+      set_nonbasic(j, status_[j] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower);
+      flipped = true;
+    } else {
       cost_[j] -= d_[j];
       d_[j] = 0;
       costs_modified_ = true;
     }
+  }
+  if (flipped) compute_primal();
   return largest;
 }
 
@@ -539,7 +590,7 @@ FloatStatus Engine::solve() {
     compute_primal();
     compute_dual();
     bool perturbed_once = false;
-    for (int round = 0; round < 12; ++round) {
+    for (int round = 0; round < 20; ++round) {
       int primal_bad = count_primal_infeasible();
       int dual_bad = count_dual_infeasible(true);
       if (primal_bad == 0 && dual_bad == 0) {
@@ -559,7 +610,7 @@ FloatStatus Engine::solve() {
         compute_primal();
         if (count_dual_infeasible(false) > 0) {
           end = dual_phase_one();
-          if (end == LoopEnd::optimal && shift_to_dual_feasible(1e-5) > 1e-5) {
+          if (end == LoopEnd::optimal && remove_dual_infeasibilities(shift_limit) > shift_limit) {
             note_ = "dual infeasible after dual phase 1";
             return FloatStatus::unbounded;
           }
@@ -578,6 +629,14 @@ FloatStatus Engine::solve() {
       switch (end) {
         case LoopEnd::optimal:
         case LoopEnd::restart:
+          if (dual_feasibility_lost_) {
+            // The shifts made so far may be what the lost accuracy fed on: start again from the
+            // model's costs with stricter pivoting.
+            dual_feasibility_lost_ = false;
+            raise_stability();
+            restore_costs();
+            perturbed_once = false;
+          }
           refresh();
           break;
         case LoopEnd::infeasible: note_ = "dual ray found"; return FloatStatus::infeasible;

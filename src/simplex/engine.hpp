@@ -37,6 +37,8 @@ class Engine {
   double primal_tolerance = 1e-7;
   double dual_tolerance = 1e-7;
   double pivot_tolerance = 1e-7;
+  // Largest dual infeasibility after refactorization still taken for rounding and shifted away.
+  double shift_limit = 1e-5;
 
  private:
   enum class LoopEnd { optimal, infeasible, unbounded, stopped, limit, restart };
@@ -54,7 +56,13 @@ class Engine {
 
   void refactor();  // may swap logicals in for a singular basis; sets repaired_
   bool refresh();  // refactor and recompute primal and dual values; true when repaired
-  void compute_primal();
+  // refresh(), then dual infeasibilities up to shift_limit are removed; larger ones mean the
+  // updates lost accuracy: dual_feasibility_lost_ is set and true returned, so the loop restarts.
+  bool refresh_dual_feasible();
+  void raise_stability();  // stricter LU and ratio-test pivots, after accuracy was lost
+  void compute_primal();  // also rebuilds the list of infeasible positions
+  void note_moved(int k);  // the basic value at position k changed: list it if now infeasible
+  void move_basics(const SparseVector& change, double factor);  // x_B -= factor * change
   void compute_dual();
   void compute_pivot_row();  // alpha_row_ from rho_, over nonbasic variables
   void clear_pivot_row();
@@ -69,7 +77,7 @@ class Engine {
   LoopEnd dual_phase_one();
   void perturb_costs();
   void restore_costs();
-  double shift_to_dual_feasible(double limit);
+  double remove_dual_infeasibilities(double limit);
   void pivot(int r, int entering, double primal_step);  // basis change at position r
 
   const LpData& lp_;
@@ -84,8 +92,14 @@ class Engine {
   std::vector<VarStatus> status_;
   std::vector<double> weight_;  // dual steepest-edge weights per position
   std::vector<char> rejected_;  // positions left out of dual pricing until the next factorization
+  // Positions that may be primal infeasible (every infeasible one is listed; pricing drops the
+  // feasible ones), so dual pricing need not scan every row.
+  std::vector<int> infeasible_;
+  std::vector<char> listed_;
   BasisFactor factor_;
   bool repaired_ = false;
+  bool dual_feasibility_lost_ = false;
+  int stability_level_ = 0;
 
   SparseVector rho_, column_, tau_, flips_;  // B^-T e_r, B^-1 a_q, B^-1 rho, B^-1 (flipped columns)
   std::vector<double> work_;
