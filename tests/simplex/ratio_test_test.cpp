@@ -68,4 +68,44 @@ TEST(PrimalRatioTest, NoCandidateMeansNothingBlocks) {
   EXPECT_EQ(primal_ratio_test({}, tolerance).leaving, -1);
 }
 
+// A breakpoint already slightly past zero (a reduced cost within the tolerance on the wrong
+// side) limits the step to zero; Harris (1973) still lets the larger rate enter.
+TEST(DualRatioTest, ABreakpointSlightlyPastZeroAllowsNoPositiveStep) {
+  std::vector<DualCandidate> candidates = {{1, -5e-8, 1e-2, infinity}, {2, 0.0, 1.0, infinity}, {3, 1.0, 1.0, infinity}};
+  auto step = dual_ratio_test(candidates, 1.0, tolerance, tolerance);
+  EXPECT_EQ(step.entering, 2);
+  EXPECT_LE(step.step, 0.0);
+  EXPECT_TRUE(step.flips.empty());
+}
+
+// Several boxed breakpoints are passed in order of their ratios while the slope stays positive
+// (Fourer 1994; Maros 2003, section 10.3): slope 3 - 1*1 - 1*1 = 1 > 0 after the first two, and
+// the third, unboxed, enters.
+TEST(DualRatioTest, PassesSeveralBoxedBreakpointsInRatioOrder) {
+  std::vector<DualCandidate> candidates = {
+      {4, 3.0, 1.0, infinity}, {2, 2.0, 1.0, 1.0}, {1, 1.0, 1.0, 1.0}};
+  auto step = dual_ratio_test(candidates, 3.0, tolerance, tolerance);
+  EXPECT_EQ(step.entering, 4);
+  ASSERT_EQ(step.flips.size(), 2u);
+  EXPECT_EQ(step.flips[0], 1);
+  EXPECT_EQ(step.flips[1], 2);
+  EXPECT_DOUBLE_EQ(step.step, 3.0);
+}
+
+// A free nonbasic variable (infinite range) can never be passed: it enters at its breakpoint
+// even when the slope would allow more.
+TEST(DualRatioTest, AFreeVariableIsNeverPassed) {
+  std::vector<DualCandidate> candidates = {{7, 0.5, 2.0, infinity}, {8, 1.0, 1.0, 1.0}};
+  auto step = dual_ratio_test(candidates, 100.0, tolerance, tolerance);
+  EXPECT_EQ(step.entering, 7);
+  EXPECT_TRUE(step.flips.empty());
+}
+
+TEST(PrimalRatioTest, ABasicVariableAlreadyPastItsBoundBlocksAtOnce) {
+  std::vector<PrimalCandidate> candidates = {{0, -5e-8, 1.0}, {1, 1.0, 1.0}};
+  auto step = primal_ratio_test(candidates, tolerance);
+  EXPECT_EQ(step.leaving, 0);
+  EXPECT_LE(step.step, 0.0);
+}
+
 }  // namespace
