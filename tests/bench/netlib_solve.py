@@ -228,6 +228,9 @@ def write_section(output, text):
 
 
 def main():
+    # Exact objectives run to thousands of digits (dfl001's fraction has over 7000).
+    if hasattr(sys, "set_int_max_str_digits"):
+        sys.set_int_max_str_digits(0)
     options = parse_arguments()
     folder = netlib_folder(options.shared)
     optima = published_optima(folder)
