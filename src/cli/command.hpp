@@ -33,6 +33,10 @@ struct ModelOptions {
 void add_model_options(CLI::App& command, ModelOptions& options);
 model::Model load_model(const ModelOptions& options);
 
+// Commands that solve call this first: SIGINT and SIGTERM then set run::interrupt_flag(), which
+// the readers and every solve loop poll, so the command ends with exit 3 wherever it is.
+void stop_on_interrupt();
+
 // One function per subcommand; each adds itself to app and sets `action` when chosen.
 void add_inspect(CLI::App& app, Action& action);
 void add_convert(CLI::App& app, Action& action);

@@ -1,10 +1,22 @@
 // plumb: the command-line driver.  Parses options and calls one library function per command.
 #include "command.hpp"
+#include "plumb/run/budget.hpp"
 
+#include <csignal>
 #include <iostream>
 #include <new>
 
 namespace plumb::cli {
+namespace {
+
+extern "C" void on_interrupt(int) { run::interrupt_flag().store(true); }
+
+}  // namespace
+
+void stop_on_interrupt() {
+  std::signal(SIGINT, on_interrupt);
+  std::signal(SIGTERM, on_interrupt);
+}
 
 void add_model_options(CLI::App& command, ModelOptions& options) {
   command.add_option("model", options.path, "Model file: MPS (fixed or free, .gz allowed) or .plumb")->required();
@@ -43,6 +55,10 @@ int main(int argc, char** argv) {
   }
   try {
     return action ? action() : exit_bad_input;
+  } catch (const plumb::run::Stopped& stopped) {
+    std::cerr << "plumb: stopped (" << plumb::run::describe(stopped.reason) << ") while " << stopped.progress
+              << "; nothing is certified and no certificate was written\n";
+    return exit_stopped;
   } catch (const plumb::model::InputError& e) {
     std::cerr << "plumb: " << e.what() << "\n";
     return exit_bad_input;

@@ -8,7 +8,6 @@
 
 #include <chrono>
 #include <cmath>
-#include <csignal>
 #include <cstdio>
 #include <fstream>
 #include <iostream>
@@ -31,8 +30,6 @@ struct SolveCommandOptions {
   std::string method = "hybrid";
   bool quiet = false;
 };
-
-extern "C" void on_interrupt(int) { run::interrupt_flag().store(true); }
 
 // The start basis from a file, with a warning on stderr for what does not fit the model: another
 // model file, or a count of basic variables other than the row count (the engine repairs that).
@@ -80,9 +77,8 @@ std::function<void(const exact::Progress&)> progress_printer() {
 }
 
 int run_solve(const SolveCommandOptions& options) {
+  stop_on_interrupt();
   model::Model model = load_model(options.model);
-  std::signal(SIGINT, on_interrupt);
-  std::signal(SIGTERM, on_interrupt);
   run::Budget budget(options.time_limit, options.memory_limit);
   exact::SolveOptions solve;
   solve.method = options.method == "exact" ? exact::Method::exact : exact::Method::hybrid;

@@ -1,5 +1,7 @@
 #include "input_file.hpp"
 
+#include "plumb/run/budget.hpp"
+
 #include <openssl/evp.h>
 #include <zlib.h>
 
@@ -13,6 +15,9 @@ namespace plumb::model::detail {
 namespace {
 
 constexpr uInt buffer_bytes = 1 << 18;
+// Lines between two looks at the interrupt flag (from line 1 on, so a signal that came before
+// reading began stops it at once).
+constexpr long interrupt_poll_lines = 4096;
 
 // Inflates every gzip member of `stored` in turn, handing each decompressed chunk to `sink`, and
 // returns the total size.  Throws InputError for corrupt or truncated data and as soon as the
@@ -28,6 +33,7 @@ std::size_t inflate_gzip(const std::string& stored, const std::string& path, Sin
   std::size_t total = 0;
   int status = Z_OK;
   while (true) {
+    run::stop_if_interrupted([&] { return "decompressing " + path + ", after " + std::to_string(total >> 20) + " MiB"; });
     stream.next_out = reinterpret_cast<Bytef*>(buffer.get());
     stream.avail_out = buffer_bytes;
     status = inflate(&stream, Z_NO_FLUSH);
@@ -113,6 +119,8 @@ bool LineCursor::next(std::string_view& line) {
   line = text_.substr(offset_, end - offset_);
   offset_ = end + 1;
   ++line_number_;
+  if ((line_number_ & (interrupt_poll_lines - 1)) == 1)
+    run::stop_if_interrupted([&] { return "reading " + file_ + ", at line " + std::to_string(line_number_); });
   if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
   if (line.size() > max_line_length)
     throw InputError(here(), "a line of " + std::to_string(line.size()) + " characters",

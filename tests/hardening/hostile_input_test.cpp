@@ -1,7 +1,9 @@
 // Hostile and extreme inputs for the readers: huge and tiny numbers, empty files, over-long lines,
 // binary bytes, files and gzip streams past the 2 GiB limit.  Every case is a constructed case.
+#include "plumb/model/labels.hpp"
 #include "plumb/model/read.hpp"
 #include "plumb/numeric/rational.hpp"
+#include "plumb/run/budget.hpp"
 
 #include <gtest/gtest.h>
 #include <sys/resource.h>
@@ -202,6 +204,35 @@ TEST_F(HostileInput, GzipBombInManyMembersIsRefusedWithoutKeepingItsExpansion) {
   EXPECT_NE(error_reading(path).find("more than 2 GiB after decompression"), std::string::npos)
       << error_reading(path);
   EXPECT_LT(peak_resident_kib() - before, 64 * 1024);
+}
+
+// How far a read got when an interrupt stopped it, or "" when it was not stopped.  The flag is
+// set before reading, as a signal arriving just after `plumb solve` installed its handlers would.
+template <class Read>
+std::string progress_when_interrupted(Read read) {
+  run::interrupt_flag().store(true);
+  std::string progress;
+  try {
+    read();
+  } catch (const run::Stopped& stopped) {
+    EXPECT_EQ(stopped.reason, run::StopReason::interrupted);
+    progress = stopped.progress;
+  }
+  run::interrupt_flag().store(false);
+  return progress;
+}
+
+TEST_F(HostileInput, ReadersStopAtOnceOnAnInterrupt) {
+  // Constructed case: every reader polls the interrupt flag from its first line on, and says where.
+  EXPECT_EQ(progress_when_interrupted([] { read_model_text(tiny_model, "tiny.mps"); }), "reading tiny.mps, at line 1");
+  EXPECT_EQ(progress_when_interrupted([] { read_model_text("var x >= 0\nminimise x\n", "tiny.plumb"); }),
+            "reading tiny.plumb, at line 1");
+  Model m = read_model_text(tiny_model, "tiny.mps");
+  EXPECT_EQ(progress_when_interrupted([&] { apply_labels_text(m, "name,kind,statement\n", "tiny.labels.csv"); }),
+            "reading tiny.labels.csv, at line 1");
+  std::string gz = write("zeros.mps.gz", zero_bomb(1, 1u << 20));
+  EXPECT_EQ(progress_when_interrupted([&] { read_model(gz); }), "decompressing " + gz + ", after 0 MiB");
+  EXPECT_EQ(error_reading(write("tiny.mps", tiny_model)), "") << "the flag is cleared again";
 }
 
 }  // namespace

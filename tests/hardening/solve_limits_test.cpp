@@ -104,6 +104,7 @@ class SolveLimitsBase : public ::testing::Test {
     fs::create_directories(folder_);
   }
   void TearDown() override { fs::remove_all(folder_); }
+  fs::path certificate() const { return folder_ / "never.certificate.json"; }
   fs::path folder_;
 };
 
@@ -120,12 +121,37 @@ TEST_F(SolveRefusals, FileOverTwoGibibytesExitsOneWithAMessage) {
   EXPECT_NE(run.stderr_text().find("larger than 2 GiB"), std::string::npos) << run.stderr_text();
 }
 
+using SolveSignals = SolveLimitsBase;
+
+TEST_F(SolveSignals, SignalDuringAReadExitsThreeAndSaysWhere) {
+  // Constructed case: 4 million comment lines before a tiny model, so the signal, sent as soon as
+  // plumb catches it, arrives while the file is being read; plumb stops there, not later.
+  fs::path model = folder_ / "long.mps";
+  {
+    std::ofstream out(model, std::ios::binary);
+    std::string block;
+    for (int k = 0; k < 1 << 19; ++k) block += "*\n";  // 1 MiB of comment lines
+    for (int k = 0; k < 8; ++k) out << block;
+    out << "NAME long\nROWS\n N cost\n L cap\nCOLUMNS\n x cost -1 cap 1\nRHS\n rhs cap 4\nENDATA\n";
+  }
+  for (int number : {SIGINT, SIGTERM}) {
+    SCOPED_TRACE(number);
+    PlumbProcess run(folder_, {"solve", model.string(), "--certificate", certificate().string()});
+    ASSERT_TRUE(run.wait_until_catching(number)) << "never caught the signal: " << run.stderr_text();
+    run.signal(number);
+    EXPECT_EQ(run.wait(), 3) << run.stderr_text();
+    EXPECT_NE(run.stderr_text().find("stopped (interrupted) while reading " + model.string() + ", at line "),
+              std::string::npos) << run.stderr_text();
+    EXPECT_FALSE(fs::exists(certificate()));
+    EXPECT_EQ(run.stdout_text(), "");
+  }
+}
+
 class NetlibSolveLimits : public SolveLimitsBase {
  protected:
   // A model the exact engine takes many seconds over (6071 rows, 12230 columns).
   fs::path big_model() const { return test::shared_dir / "netlib" / "dfl001.mps.gz"; }
   bool have_model() const { return test::shared_folder_present(test::shared_dir / "netlib") && fs::exists(big_model()); }
-  fs::path certificate() const { return folder_ / "never.certificate.json"; }
 };
 
 TEST_F(NetlibSolveLimits, TimeAndMemoryLimitsExitThreeSayHowFarAndWriteNoCertificate) {

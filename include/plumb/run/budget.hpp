@@ -41,9 +41,17 @@ std::size_t resident_mib();
 // ru_maxrss), 0 when unknown.
 double peak_resident_mib();
 
-// Thrown by deep code to unwind to the command when the budget is exhausted.
+// Thrown by deep code (the readers, on an interrupt) to unwind to the command; `progress` says how
+// far the work got, e.g. "reading m.mps, at line 4097".
 struct Stopped {
   StopReason reason;
+  std::string progress;
 };
+
+// Throws Stopped{interrupted, progress()} when interrupt_flag() is set; cheap (one relaxed load).
+template <class Progress>
+void stop_if_interrupted(Progress progress) {
+  if (interrupt_flag().load(std::memory_order_relaxed)) throw Stopped{StopReason::interrupted, progress()};
+}
 
 }  // namespace plumb::run
