@@ -17,6 +17,7 @@ enum Exit : int {
   exit_bad_input = 1,
   exit_stopped = 3,  // a time, memory or interrupt limit was reached; nothing certified
   exit_certificate_invalid = 4,
+  exit_other_status = 5,  // plumb check --expect: a valid certificate, but of another status
   exit_infeasible = 10,
   exit_unbounded = 11,
 };
