@@ -1,12 +1,15 @@
-// Models that trip floating-point solvers: margins of 1e-12, nearly parallel rows, bad scaling,
-// huge ranges on free variables, degenerate and cycling-prone vertices.  Each must be solved
-// with its known exact answer and a certificate the independent checker accepts.
+// Models that trip floating-point solvers: coefficients of 1e+-300 and 500-digit decimals, margins
+// of 1e-12, nearly parallel rows, bad scaling, huge ranges on free variables, degenerate and
+// cycling-prone vertices.  Each must be solved with its known exact answer and a certificate the
+// independent checker accepts.
 #include "plumb/certificate/certificate.hpp"
 #include "plumb/check/check.hpp"
 #include "plumb/exact/solve.hpp"
 #include "plumb/model/model.hpp"
 
 #include <gtest/gtest.h>
+
+#include <string>
 
 namespace plumb::exact {
 namespace {
@@ -37,6 +40,23 @@ void expect_solved(const model::Model& m, Outcome outcome, std::optional<Rationa
     check::Verdict again = check::verify(m, read_back);
     EXPECT_TRUE(again.valid) << again.failure;
   }
+}
+
+TEST(HardNumerics, ExtremeCoefficientsSolveExactly) {
+  // Constructed case: 1e300 x >= 1, 1e-300 y >= 1 and d z <= e with 500-digit decimals d and e
+  // (250 digits each side of the point); min x + y - z is 1e-300 + 1e300 - e/d, exactly.
+  std::string digits;
+  for (int k = 0; k < 50; ++k) digits += "1234567890";
+  std::string reversed(digits.rbegin(), digits.rend());
+  Rational d = n((digits.substr(0, 250) + "." + digits.substr(250)).c_str());
+  Rational e = n((reversed.substr(0, 250) + "." + reversed.substr(250)).c_str());
+  auto m = ModelBuilder("extreme-coefficients")
+               .column("x", 1).column("y", 1).column("z", -1)
+               .row("huge_coefficient", {{"x", n("1e300")}}, Rational(1), {})
+               .row("tiny_coefficient", {{"y", n("1e-300")}}, Rational(1), {})
+               .row("long_decimals", {{"z", d}}, {}, e)
+               .build();
+  expect_solved(m, Outcome::optimal, n("1e-300") + n("1e300") - e / d);
 }
 
 TEST(HardNumerics, InfeasibleByOneTrillionth) {
