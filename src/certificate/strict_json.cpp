@@ -219,7 +219,10 @@ std::string describe(const Json& value) {
     case Json::value_t::string: {
       const auto& text = value.get_ref<const std::string&>();
       if (text.size() <= 40) return "the string " + value.dump();
-      return "the string " + Json(text.substr(0, 24)).dump() + "... (" + std::to_string(text.size()) + " characters)";
+      // The excerpt ends before a character, not inside one (the text is valid UTF-8, read so).
+      std::size_t cut = 24;
+      while (cut > 0 && (static_cast<unsigned char>(text[cut]) & 0xC0) == 0x80) --cut;
+      return "the string " + Json(text.substr(0, cut)).dump() + "... (" + std::to_string(text.size()) + " bytes)";
     }
     case Json::value_t::boolean: return std::string("the value ") + (value.get<bool>() ? "true" : "false");
     case Json::value_t::null: return "null";

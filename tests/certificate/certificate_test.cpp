@@ -137,6 +137,13 @@ TEST(CertificateReader, RefusesNonCanonicalRationals) {
   expect_refused(with_value("\" 1\""), "found the string \" 1\"");
 }
 
+TEST(CertificateReader, QuotesALongStringWithoutCuttingACharacter) {
+  // Found by the certificate fuzzer (tests/data/fuzz-regressions/certificate/): the excerpt of a long
+  // string was cut at byte 24, inside a three-byte character, and quoting it threw.
+  std::string text = std::string(23, 'a') + "\xe4\x84\x81" + std::string(20, 'b');  // U+4101 at bytes 23-25
+  expect_refused(with_value("\"" + text + "\""), "found the string \"" + std::string(23, 'a') + "\"... (46 bytes)");
+}
+
 TEST(CertificateReader, RefusesNumbersWhereRationalsBelong) {
   expect_refused(with_value("1"), "found the number 1, expected a rational written as a string");
   expect_refused(with_value("0.1"), "found the number 0.1");
