@@ -33,7 +33,11 @@ std::size_t inflate_gzip(const std::string& stored, const std::string& path, Sin
   std::size_t total = 0;
   int status = Z_OK;
   while (true) {
-    run::stop_if_interrupted([&] { return "decompressing " + path + ", after " + std::to_string(total >> 20) + " MiB"; });
+    if (run::interrupt_flag().load(std::memory_order_relaxed)) {
+      inflateEnd(&stream);
+      throw run::Stopped{run::StopReason::interrupted,
+                         "decompressing " + path + ", after " + std::to_string(total >> 20) + " MiB"};
+    }
     stream.next_out = reinterpret_cast<Bytef*>(buffer.get());
     stream.avail_out = buffer_bytes;
     status = inflate(&stream, Z_NO_FLUSH);
