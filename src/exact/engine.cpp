@@ -24,6 +24,7 @@ constexpr int pricing_tries = 3;
 
 Engine::Engine(const model::Model& model, run::Budget* budget, const std::function<void(const Progress&)>* progress)
     : model_(model), budget_(budget), progress_(progress), n_(model.column_count()), m_(model.row_count()) {
+  factor_.budget = budget;
   lower_.resize(static_cast<std::size_t>(total()));
   upper_.resize(static_cast<std::size_t>(total()));
   fixed_.assign(static_cast<std::size_t>(total()), 0);
@@ -189,7 +190,9 @@ bool Engine::certify_by_refinement(const simplex::Basis& basis) {
   }
   std::vector<SparseColumn> columns(static_cast<std::size_t>(m_));
   for (int p = 0; p < m_; ++p) columns[p] = constraint_column(head_[p]);
-  RefinedSolver solver;
+  RefineLimits limits;
+  limits.budget = budget_;
+  RefinedSolver solver(limits);
   if (!solver.factorize(m_, columns)) return false;
 
   nonbasic_activity(rows_);

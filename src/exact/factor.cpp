@@ -73,6 +73,7 @@ void BasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
   std::vector<int> emptied;
 
   for (;;) {
+    run::stop_if_exhausted(budget, [] { return std::string("factorizing the exact basis"); });
     // Markowitz search (restricted to a few shortest columns and rows, as is common practice).
     int min_column_count = std::numeric_limits<int>::max(), min_row_count = std::numeric_limits<int>::max();
     for (int c = 0; c < k; ++c) {

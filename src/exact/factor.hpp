@@ -2,6 +2,7 @@
 #pragma once
 
 #include "plumb/numeric/rational.hpp"
+#include "plumb/run/budget.hpp"
 
 #include <utility>
 #include <vector>
@@ -71,6 +72,9 @@ class BasisFactor {
   // ones, and columns beyond the rank, are reported in dependent_columns; rows that got no pivot
   // in uncovered_rows.  The factor is usable only when both lists are empty and k == m.
   void factorize(int m, const std::vector<SparseColumn>& columns);
+  // Polled once per pivot: factorize throws run::Stopped when it is exhausted (a large exact
+  // basis can take minutes).
+  run::Budget* budget = nullptr;
   const std::vector<int>& dependent_columns() const { return dependent_columns_; }
   const std::vector<int>& uncovered_rows() const { return uncovered_rows_; }
   bool nonsingular() const { return dependent_columns_.empty() && uncovered_rows_.empty(); }

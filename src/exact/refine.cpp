@@ -178,6 +178,7 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
   bool seed_tried = false;
   long residual_bits = max_bits(residual_);
   for (;;) {
+    run::stop_if_exhausted(limits_.budget, [] { return std::string("refining the basic solution"); });
     long shift;
     float_solve(matrix, transposed, shift);
     double largest = 0;

@@ -15,6 +15,7 @@ using numeric::Integer;
 struct RefineLimits {
   long max_bits = 1L << 16;  // give up once the accumulated denominator 2^E exceeds this many bits
   int guard_bits = 8;        // reconstruction keeps this margin below the estimated accuracy
+  run::Budget* budget = nullptr;  // polled every step: a solve throws run::Stopped when exhausted
 };
 
 // What the last solve did, for benchmarks and tests.

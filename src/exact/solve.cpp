@@ -16,6 +16,9 @@ double seconds_since(std::chrono::steady_clock::time_point start) {
   return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
 }
 
+Solution engine_solution(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
+                         const simplex::FloatResult* found);
+
 // Runs the exact engine from the given basis (or from the logical basis when null).  `found`, the
 // float search's result ending at that basis, lets its claim be proven without pivots: optimality
 // by refinement, infeasibility from the row of B^{-1} it names, unboundedness along its edge.
@@ -27,6 +30,20 @@ Solution run_exact(const model::Model& model, const SolveOptions& options, const
     options.progress(Progress{start ? "exact certify" : "exact start", 0, nothing_yet, nothing_yet,
                               options.budget ? options.budget->elapsed_seconds() : 0});
   }
+  Solution solution;
+  try {
+    solution = engine_solution(model, options, start, found);
+  } catch (const run::Stopped& stop) {  // inside a factorization or a refinement
+    solution.stop_reason = stop.reason;
+    solution.stats.phase = stop.progress;
+  }
+  (start ? solution.stats.certify_seconds : solution.stats.exact_seconds) = seconds_since(clock);
+  return solution;
+}
+
+// The exact engine's part of run_exact.
+Solution engine_solution(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
+                         const simplex::FloatResult* found) {
   detail::Engine engine(model, options.budget, &options.progress);
   bool repaired = false;
   if (!start) {
@@ -50,7 +67,6 @@ Solution run_exact(const model::Model& model, const SolveOptions& options, const
   solution.stats.exact_iterations = result.iterations;
   solution.stats.phase = result.phase;
   solution.stats.repaired = start && (repaired || result.iterations > 0);
-  (start ? solution.stats.certify_seconds : solution.stats.exact_seconds) = seconds_since(clock);
   if (solution.outcome == Outcome::optimal) solution.objective = model.objective_value(solution.x);
   return solution;
 }

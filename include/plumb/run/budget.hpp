@@ -54,4 +54,13 @@ void stop_if_interrupted(Progress progress) {
   if (interrupt_flag().load(std::memory_order_relaxed)) throw Stopped{StopReason::interrupted, progress()};
 }
 
+// Throws Stopped{reason, progress()} when the budget is exhausted (or, without a budget, when
+// interrupt_flag() is set): for long steps with no loop of their own to return from, such as an
+// exact factorization.
+template <class Progress>
+void stop_if_exhausted(Budget* budget, Progress progress) {
+  if (budget ? budget->exhausted() : interrupt_flag().load(std::memory_order_relaxed))
+    throw Stopped{budget ? budget->reason() : StopReason::interrupted, progress()};
+}
+
 }  // namespace plumb::run
