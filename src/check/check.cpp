@@ -14,6 +14,7 @@ using detail::amount;
 using detail::Failure;
 using model::Model;
 using model::Side;
+using numeric::Integer;
 using numeric::Rational;
 
 enum class Kind { row, column };
@@ -37,24 +38,44 @@ std::vector<Rational> dense(const Model& m, const NamedValues& values, Kind kind
   return out;
 }
 
+// v as N / L: integers N over the least common denominator L.  A sum of products with v then adds
+// fractions with the small denominators of matrix entries, and the one division by L per sum is
+// its only gcd of long numbers.  (At bases with long determinants a certificate holds thousands
+// of fractions of thousands of digits whose denominators all divide one number; summing them
+// directly took a gcd of long numbers per matrix entry.)
+Integer over_common_denominator(const std::vector<Rational>& v, std::vector<Rational>& numerators) {
+  Integer common = 1;
+  for (const Rational& q : v)
+    if (common % denominator(q) != 0) common = lcm(common, denominator(q));
+  numerators.resize(v.size());
+  for (std::size_t k = 0; k < v.size(); ++k) numerators[k] = numerator(v[k]) * (common / denominator(v[k]));
+  return common;
+}
+
 std::vector<Rational> times(const Model& m, const std::vector<Rational>& x) {  // A x
+  std::vector<Rational> numerators;
+  Integer common = over_common_denominator(x, numerators);
   std::vector<Rational> out(static_cast<std::size_t>(m.row_count()));
   for (int j = 0; j < m.column_count(); ++j) {
-    if (x[j] == 0) continue;
+    if (numerators[j] == 0) continue;
     auto rows = m.matrix.column_rows(j);
     auto values = m.matrix.column_values(j);
-    for (std::size_t k = 0; k < rows.size(); ++k) out[rows[k]] += values[k] * x[j];
+    for (std::size_t k = 0; k < rows.size(); ++k) out[rows[k]] += values[k] * numerators[j];
   }
+  for (Rational& v : out) v /= common;
   return out;
 }
 
 std::vector<Rational> transpose_times(const Model& m, const std::vector<Rational>& y) {  // A^T y
+  std::vector<Rational> numerators;
+  Integer common = over_common_denominator(y, numerators);
   std::vector<Rational> out(static_cast<std::size_t>(m.column_count()));
   for (int j = 0; j < m.column_count(); ++j) {
     auto rows = m.matrix.column_rows(j);
     auto values = m.matrix.column_values(j);
     for (std::size_t k = 0; k < rows.size(); ++k)
-      if (y[rows[k]] != 0) out[j] += values[k] * y[rows[k]];
+      if (numerators[rows[k]] != 0) out[j] += values[k] * numerators[rows[k]];
+    out[j] /= common;
   }
   return out;
 }

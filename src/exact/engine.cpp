@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <stdexcept>
 
 namespace plumb::exact::detail {
@@ -19,6 +20,19 @@ constexpr int degenerate_run_limit = 24;
 constexpr double pricing_tolerance = 1e-9;
 // How many of the best-estimated candidates are tried exactly before a full exact scan.
 constexpr int pricing_tries = 3;
+// Largest scale of a correction problem, 2^40: the rest of the problem must stay within double
+// range, and a violation smaller than 2^-40 gets a further round.
+constexpr int max_correction_scale_bits = 40;
+
+// a / (b c) in double, for integers too long for a double each.
+double quotient(const Integer& a, const Integer& b, const Integer& c) {
+  if (mpz_sgn(a.backend().data()) == 0) return 0;
+  long ea, eb, ec;
+  double ma = mpz_get_d_2exp(&ea, a.backend().data()), mb = mpz_get_d_2exp(&eb, b.backend().data()),
+         mc = mpz_get_d_2exp(&ec, c.backend().data());
+  long exponent = std::clamp(ea - eb - ec, -2000L, 2000L);
+  return std::ldexp(ma / (mb * mc), static_cast<int>(exponent));
+}
 
 }  // namespace
 
@@ -62,9 +76,7 @@ Engine::Engine(const model::Model& model, run::Budget* budget, const std::functi
   position_.assign(static_cast<std::size_t>(total()), -1);
   rows_.resize(m_);
   positions_.resize(m_);
-  alpha_.resize(m_);
   duals_.resize(m_);
-  pivot_row_.resize(total());
   dual_estimate_.assign(static_cast<std::size_t>(m_), 0.0);
   cost_estimate_of_basis_.assign(static_cast<std::size_t>(m_), 0.0);
 }
@@ -117,6 +129,9 @@ void Engine::refactor() {
 
 // Factorizes the given basic variables; dependent ones leave, logicals of uncovered rows enter.
 bool Engine::install_basis(std::vector<int> basic_variables) {
+  // Storage for pivots, which a basis certified by refinement never needs.
+  if (alpha_.size() != m_) alpha_.resize(m_);
+  if (pivot_row_.size() != total()) pivot_row_.resize(total());
   bool repaired = static_cast<int>(basic_variables.size()) != m_;
   for (int attempt = 0;; ++attempt) {
     std::vector<SparseColumn> columns(basic_variables.size());
@@ -179,7 +194,7 @@ bool Engine::start_from(const simplex::Basis& basis) {
   return repaired_;
 }
 
-bool Engine::certify_by_refinement(const simplex::Basis& basis) {
+bool Engine::certify_by_refinement(const simplex::Basis& basis, simplex::CorrectionProblem* correction) {
   settled_.reset();
   if (!fits(basis)) return false;
   head_ = rest_as_in(basis);
@@ -202,39 +217,102 @@ bool Engine::certify_by_refinement(const simplex::Basis& basis) {
   auto x_basic = solver.solve(rhs);
   if (!x_basic) return false;
   for (int p = 0; p < m_; ++p) value_[head_[p]].backend().swap((*x_basic)[p].backend());
-  if (infeasible_basis()) return false;
+  bool optimal = !infeasible_basis();
+  if (!optimal && !correction) return false;
 
   std::vector<Rational> basic_costs(static_cast<std::size_t>(m_));
   for (int p = 0; p < m_; ++p) basic_costs[p] = cost_[head_[p]];
   auto y = solver.solve_transposed(basic_costs);
   if (!y) return false;
-  // Signs of the reduced costs from y = P / Q over integer-scaled columns: d_j has the sign of
-  // D_j c'_j Q - sum_i (D_j a_ij) P_i, integer products without a gcd each (y's fractions are
-  // long: thousands of bits on some Netlib bases).
+  // Signs of the reduced costs d_j = c'_j - a_j^T y for y = P / Q (y's fractions are long:
+  // thousands of bits on some Netlib bases).  A double estimate decides a sign when it exceeds a
+  // bound on its own rounding error, a floating-point filter in the manner of S. Fortune and
+  // C. J. Van Wyk ("Efficient exact arithmetic for computational geometry", SoCG 1993); the few
+  // others, zero or nearly so, are computed exactly.  The independent checker proves the result.
   const std::vector<Integer>& numerators = solver.common_numerators();
   const Integer& denominator = solver.common_denominator();
-  scale_columns();
+  std::vector<double> dual_estimate(static_cast<std::size_t>(m_));
+  std::vector<char> estimate_usable(static_cast<std::size_t>(m_));
+  for (int i = 0; i < m_; ++i) {
+    dual_estimate[i] = quotient(numerators[i], Integer(1), denominator);
+    estimate_usable[i] = mpz_sgn(numerators[i].backend().data()) == 0 || std::isnormal(dual_estimate[i]);
+  }
+  std::vector<double> reduced_costs;  // of the nonbasic variables, for the correction problem
+  if (correction) reduced_costs.assign(static_cast<std::size_t>(total()), 0.0);
   Integer sum;
-  bool improvable = false;
   for_each_priced_column([&](int j, std::span<const int> rows, std::size_t entry) {
-    if (improvable) return;
-    mpz_mul(sum.backend().data(), scaled_cost_[j].backend().data(), denominator.backend().data());
+    if (!optimal && !correction) return;
+    double d = cost_estimate_[j], size = std::abs(d);
+    bool usable = true;
     for (int r : rows) {
-      const Integer& a = scaled_matrix_[entry++];
-      mpz_submul(sum.backend().data(), a.backend().data(), numerators[r].backend().data());
+      double term = matrix_estimate_[entry++] * dual_estimate[r];
+      d -= term;
+      size += std::abs(term);
+      usable = usable && estimate_usable[r];
     }
-    improvable = eligible_sign(j, mpz_sgn(sum.backend().data()));
+    // Each input is within 2^-52 (relative) of its exact value, dual estimates within 2^-50,
+    // and each of the k operations adds 2^-53: (k + 32) 2^-50 of the sum of magnitudes is ample;
+    // the last term covers products that underflow.
+    const double k = static_cast<double>(rows.size());
+    const double error = (k + 32) * 0x1p-50 * size + (k + 1) * 0x1p-1020;
+    int sign;
+    if (usable && std::isfinite(size) && std::abs(d) > error) {
+      sign = d > 0 ? 1 : -1;
+    } else {
+      exact_reduced_cost(j, numerators, denominator, sum);
+      sign = mpz_sgn(sum.backend().data());
+      d = quotient(sum, scale_, denominator);
+    }
+    if (eligible_sign(j, sign)) optimal = false;
+    if (correction) reduced_costs[j] = d;
   });
-  if (improvable) return false;
-  for (int i = 0; i < m_; ++i)  // d = y_i for the logical r_i, whose column is -e_i
-    if (!basic(n_ + i) && !fixed_[n_ + i] && eligible_sign(n_ + i, mpz_sgn(numerators[i].backend().data())))
-      return false;
+  for (int i = 0; i < m_; ++i) {  // d = y_i for the logical r_i, whose column is -e_i
+    if (basic(n_ + i) || fixed_[n_ + i]) continue;
+    if (eligible_sign(n_ + i, mpz_sgn(numerators[i].backend().data()))) optimal = false;
+    if (correction) reduced_costs[n_ + i] = quotient(numerators[i], Integer(1), denominator);
+  }
+  if (!optimal) {
+    if (correction) *correction = correction_problem(reduced_costs);
+    return false;
+  }
   duals_.clear();
   for (int i = 0; i < m_; ++i)
     if (!is_zero((*y)[i])) duals_.swap_in(i, (*y)[i]);
   settled_ = Step::done;
   phase_ = "exact certification";
   return true;
+}
+
+// The correction problem at the current basis, whose basic values are exact: variables measure
+// the step from the current point, scaled by 2^p so that the largest bound violation of a basic
+// variable is about one, and costs are the reduced costs scaled by 2^d so that the largest wrong
+// sign is about one (Gleixner, Steffy & Wolter 2016).  The scales are capped so that the rest of
+// the problem stays within double range.
+simplex::CorrectionProblem Engine::correction_problem(const std::vector<double>& reduced_costs) const {
+  double primal_violation = 0, dual_violation = 0;
+  for (int k : head_) {
+    if (below(k)) primal_violation = std::max(primal_violation, numeric::to_double(Rational(*lower_[k] - value_[k])));
+    if (above(k)) primal_violation = std::max(primal_violation, numeric::to_double(Rational(value_[k] - *upper_[k])));
+  }
+  for (int k = 0; k < total(); ++k)
+    if (eligible_sign(k, reduced_costs[k] > 0 ? 1 : reduced_costs[k] < 0 ? -1 : 0))
+      dual_violation = std::max(dual_violation, std::abs(reduced_costs[k]));
+  auto scale_for = [](double violation) {
+    if (violation <= 0 || !std::isfinite(violation)) return 1.0;
+    return std::ldexp(1.0, std::clamp(-std::ilogb(violation), 0, max_correction_scale_bits));
+  };
+  const double primal_scale = scale_for(primal_violation), dual_scale = scale_for(dual_violation);
+  const double infinity = std::numeric_limits<double>::infinity();
+  simplex::CorrectionProblem problem;
+  problem.lower.resize(static_cast<std::size_t>(total()));
+  problem.upper.resize(static_cast<std::size_t>(total()));
+  problem.cost.resize(static_cast<std::size_t>(total()));
+  for (int k = 0; k < total(); ++k) {
+    problem.lower[k] = lower_[k] ? primal_scale * numeric::to_double(Rational(*lower_[k] - value_[k])) : -infinity;
+    problem.upper[k] = upper_[k] ? primal_scale * numeric::to_double(Rational(*upper_[k] - value_[k])) : infinity;
+    problem.cost[k] = dual_scale * reduced_costs[k];
+  }
+  return problem;
 }
 
 // target = -N x_N, the right-hand side of B x_B = -N x_N for the system A x - r = 0.
@@ -310,8 +388,7 @@ bool Engine::eligible_sign(int k, int sign) const {
 }
 
 // Calls visit(j, rows, entry) for every column j that may enter (nonbasic, not fixed), with its
-// row indices and the position of its first entry in column order (matrix_estimate_,
-// scaled_matrix_).
+// row indices and the position of its first entry in column order (in matrix_estimate_).
 template <class Visit>
 void Engine::for_each_priced_column(Visit&& visit) const {
   std::size_t entry = 0;
@@ -322,23 +399,25 @@ void Engine::for_each_priced_column(Visit&& visit) const {
   }
 }
 
-// Column j of A and c'_j times D_j, the least common denominator of the column and its cost.
-void Engine::scale_columns() {
-  if (!scaled_cost_.empty() || n_ == 0) return;
-  scaled_cost_.resize(static_cast<std::size_t>(n_));
-  scaled_matrix_.resize(model_.matrix.nonzeros());
-  Integer scale;
-  std::size_t entry = 0;
-  for (int j = 0; j < n_; ++j) {
-    auto values = model_.matrix.column_values(j);
-    mpz_set(scale.backend().data(), mpq_denref(cost_[j].backend().data()));
-    for (const Rational& a : values) mpz_lcm(scale.backend().data(), scale.backend().data(), mpq_denref(a.backend().data()));
-    auto times_scale = [&scale](const Rational& q, Integer& out) {
-      mpz_divexact(out.backend().data(), scale.backend().data(), mpq_denref(q.backend().data()));
-      mpz_mul(out.backend().data(), out.backend().data(), mpq_numref(q.backend().data()));
-    };
-    times_scale(cost_[j], scaled_cost_[j]);
-    for (const Rational& a : values) times_scale(a, scaled_matrix_[entry++]);
+// sum = D_j Q d_j = D_j c'_j Q - sum_i (D_j a_ij) P_i for y = P / Q, with scale_ = D_j the least
+// common denominator of column j and its cost: integer products without a gcd each.
+void Engine::exact_reduced_cost(int j, const std::vector<Integer>& numerators, const Integer& denominator,
+                                Integer& sum) {
+  auto rows = model_.matrix.column_rows(j);
+  auto values = model_.matrix.column_values(j);
+  mpz_ptr scale = scale_.backend().data();
+  mpz_ptr term = term_.backend().data();
+  mpz_set(scale, mpq_denref(cost_[j].backend().data()));
+  for (const Rational& a : values) mpz_lcm(scale, scale, mpq_denref(a.backend().data()));
+  auto times_scale = [scale, term](const Rational& q) {
+    mpz_divexact(term, scale, mpq_denref(q.backend().data()));
+    mpz_mul(term, term, mpq_numref(q.backend().data()));
+  };
+  times_scale(cost_[j]);
+  mpz_mul(sum.backend().data(), term, denominator.backend().data());
+  for (std::size_t e = 0; e < rows.size(); ++e) {
+    times_scale(values[e]);
+    mpz_submul(sum.backend().data(), term, numerators[rows[e]].backend().data());
   }
 }
 

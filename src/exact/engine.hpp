@@ -6,6 +6,7 @@
 #include "plumb/model/model.hpp"
 #include "plumb/run/budget.hpp"
 #include "plumb/simplex/basis.hpp"
+#include "plumb/simplex/float_simplex.hpp"
 
 #include <functional>
 #include <optional>
@@ -49,8 +50,10 @@ class Engine {
   // Certifies a basis without a rational LU or any pivot: x_B and y by float LU, iterative
   // refinement and rational reconstruction, each proven by exact multiplication (refine.hpp).
   // True when both are feasible; run() then reports the optimum.  False when the basis does not
-  // fit, refinement gives up, or either check fails: then start_from the same basis.
-  bool certify_by_refinement(const simplex::Basis& basis);
+  // fit, refinement gives up, or either check fails: then start_from the same basis.  When both
+  // were computed but one is infeasible and `correction` is given, it receives the correction
+  // problem of that basis, for a float re-solve from it.
+  bool certify_by_refinement(const simplex::Basis& basis, simplex::CorrectionProblem* correction = nullptr);
   // After start_from: proves infeasibility from the row of B^{-1} of this basic variable, which
   // violates a bound that no nonbasic variable can bring it towards (the float search's hint).
   bool certify_infeasible_row(int variable);
@@ -83,7 +86,8 @@ class Engine {
   void reduced_cost(int k, bool phase_one, Rational& out);
   bool eligible(int k, const Rational& d) const;
   bool eligible_sign(int k, int sign) const;  // as eligible, for a reduced cost of this sign
-  void scale_columns();
+  void exact_reduced_cost(int j, const std::vector<Integer>& numerators, const Integer& denominator, Integer& sum);
+  simplex::CorrectionProblem correction_problem(const std::vector<double>& reduced_costs) const;
   template <class Visit>
   void for_each_priced_column(Visit&& visit) const;
   bool improving_estimate(int k, double d) const;
@@ -107,7 +111,7 @@ class Engine {
   std::vector<const Rational*> lower_, upper_;  // null: infinite
   std::vector<char> fixed_;
   std::vector<Rational> cost_;                  // c' (minimisation form), logicals 0
-  std::vector<Integer> scaled_cost_, scaled_matrix_;  // scale_columns(): D_j c'_j and D_j a_ij
+  Integer scale_, term_;  // exact_reduced_cost(): D_j, and one scaled entry
   std::vector<double> cost_estimate_, matrix_estimate_;
   std::vector<Rational> value_;
   std::vector<VarStatus> status_;

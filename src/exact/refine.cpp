@@ -175,7 +175,7 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
   int step = max_step;
   int stalls = 0;
   long target = 64;
-  bool seed_tried = false;
+  long seed_margin = 16;  // bits beyond bits(seed) at which a seeded reconstruction is next tried
   long residual_bits = max_bits(residual_);
   for (;;) {
     run::stop_if_exhausted(limits_.budget, [] { return std::string("refining the basic solution"); });
@@ -191,10 +191,13 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
     const long error_bits = shift + std::ilogb(largest) + 1;
     // The denominator of the previous verified answer often serves this one too (the primal and
     // dual solutions at one basis share det B): with a known denominator Q, rounding N Q / 2^E
-    // needs only bits(Q) bits beyond the error, not the 2 bits(q) of a reconstruction.
-    if (!seed_tried && mpz_sgn(z(seed_)) > 0 &&
-        exponent_ - error_bits - limits_.guard_bits > static_cast<long>(mpz_sizeinbase(z(seed_), 2))) {
-      seed_tried = true;
+    // needs only bits(Q) bits beyond the error, and a further factor q of the denominator
+    // 2 bits(q) more, not the 2 bits(Q q) of a reconstruction from nothing.  Tried with margins
+    // of 16, 64, 256... bits for such factors while that is cheaper than starting from nothing.
+    const long seed_bits = mpz_sgn(z(seed_)) > 0 ? static_cast<long>(mpz_sizeinbase(z(seed_), 2)) : 0;
+    if (seed_bits > 0 && seed_margin < seed_bits &&
+        exponent_ - error_bits - limits_.guard_bits > seed_bits + seed_margin) {
+      seed_margin *= 4;
       if (reconstruct(matrix, error_bits, &seed_, answer)) return answer;
     }
     if (exponent_ - error_bits >= target) {
@@ -253,14 +256,13 @@ void RefinedSolver::fold_recent() {
 }
 
 // Tries to recover every component as p_j / (Q L) with a common Q and to prove M p = Q rhs_.
-// With a seed, only the guess p_j = round(N_j Q / 2^E) for Q = *seed is tried.
+// Q starts at *seed when given, else at 1, and grows by each component's further factor.
 bool RefinedSolver::reconstruct(const IntegerMatrix& matrix, long error_bits, const Integer* seed,
                                 std::vector<Rational>& answer) {
   ++stats_.reconstructions;
   fold_recent();
   const long slack_bits = std::max(0L, error_bits + limits_.guard_bits);
-  const long bound_bits = (exponent_ - slack_bits) / 2;  // denominators up to 2^bound_bits are unique
-  if (bound_bits < 1 && !seed) return false;
+  if (exponent_ - slack_bits < 3 && !seed) return false;
   const mp_bitcnt_t e = static_cast<mp_bitcnt_t>(exponent_);
   Integer common = seed ? *seed : Integer(1), bound, a, b, p, q, difference, allowed;
   std::vector<std::pair<int, Integer>> factors;  // (component, factor of Q introduced there)
@@ -287,12 +289,14 @@ bool RefinedSolver::reconstruct(const IntegerMatrix& matrix, long error_bits, co
       candidate_[j] = p;
       continue;
     }
-    // Otherwise the best continued-fraction approximation of N_j Q / 2^E with a bounded q.
-    if (seed) return false;
-    if (static_cast<long>(mpz_sizeinbase(z(common), 2)) > bound_bits) return false;
+    // Otherwise the best continued-fraction approximation of N_j Q / 2^E whose denominator q is
+    // small enough to be the only candidate: N_j Q / 2^E lies within Q 2^(slack - E) of
+    // x_j Q = p / q, and when 2 q^2 Q 2^(slack - E) < 1 such a p / q is a convergent of it
+    // (Legendre) and no other fraction with a denominator up to q is as close.
+    const long extra_bits = (exponent_ - slack_bits - static_cast<long>(mpz_sizeinbase(z(common), 2)) - 1) / 2;
+    if (extra_bits < 1) return false;
     mpz_set_ui(z(bound), 1);
-    mpz_mul_2exp(z(bound), z(bound), static_cast<mp_bitcnt_t>(bound_bits));
-    mpz_fdiv_q(z(bound), z(bound), z(common));
+    mpz_mul_2exp(z(bound), z(bound), static_cast<mp_bitcnt_t>(extra_bits));
     Integer scaled_numerator = a;
     mpz_set_ui(z(b), 1);
     mpz_mul_2exp(z(b), z(b), e);

@@ -16,8 +16,77 @@ double seconds_since(std::chrono::steady_clock::time_point start) {
   return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
 }
 
+// The float search's progress, reported as the solve's.
+std::function<void(const simplex::FloatProgress&)> float_progress(const SolveOptions& options, const std::string& prefix) {
+  if (!options.progress) return {};
+  auto clock = std::chrono::steady_clock::now();
+  return [&options, prefix, clock](const simplex::FloatProgress& p) {
+    double elapsed = options.budget ? options.budget->elapsed_seconds() : seconds_since(clock);
+    options.progress(Progress{prefix + p.phase, p.iterations, p.objective, p.infeasibility, elapsed});
+  };
+}
+
+// Rounds of LP iterative refinement before exact repair (A. M. Gleixner, D. E. Steffy and
+// K. Wolter, "Iterative refinement for linear programming", INFORMS J. Computing 28, 2016): when a
+// basis's exact solution is slightly infeasible or its reduced costs slightly wrong, the float
+// search re-solves the correction problem from that basis, where those violations are of order
+// one, and the basis it ends at is certified afresh.  A round costs one float solve from a warm
+// start; exact pivots on long fractions can cost seconds each.
+constexpr int correction_rounds = 4;
+
+// Certifies `basis` by refinement, correcting it by float re-solves as needed; `basis` ends as
+// the last one tried.  True when certified.
+bool certify_with_corrections(detail::Engine& engine, const model::Model& model, const SolveOptions& options,
+                              simplex::Basis& basis, SolveStats& stats) {
+  for (int round = 0;; ++round) {
+    simplex::CorrectionProblem correction;
+    if (engine.certify_by_refinement(basis, round < correction_rounds ? &correction : nullptr)) return true;
+    if (correction.cost.empty()) return false;
+    simplex::FloatOptions search;
+    search.budget = options.budget;
+    search.warm_start = &basis;
+    search.correction = &correction;
+    search.progress = float_progress(options, "correction: ");
+    simplex::FloatResult corrected = simplex::solve_float(model, search);
+    stats.correction_rounds = round + 1;
+    stats.correction_iterations += corrected.iterations;
+    if (corrected.status != simplex::FloatStatus::optimal) return false;
+    basis = std::move(corrected.basis);
+  }
+}
+
+// The exact engine's part of run_exact.
 Solution engine_solution(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
-                         const simplex::FloatResult* found);
+                         const simplex::FloatResult* found) {
+  detail::Engine engine(model, options.budget, &options.progress);
+  bool repaired = false;
+  SolveStats correction_stats;
+  if (!start) {
+    engine.start_from_logicals();
+  } else if (found && found->status != simplex::FloatStatus::optimal) {
+    repaired = engine.start_from(*start);
+    if (found->status == simplex::FloatStatus::infeasible) engine.certify_infeasible_row(found->ray_variable);
+    else if (found->status == simplex::FloatStatus::unbounded) engine.certify_ray(found->ray_variable);
+  } else {
+    simplex::Basis basis = *start;
+    if (!certify_with_corrections(engine, model, options, basis, correction_stats)) repaired = engine.start_from(basis);
+  }
+  detail::EngineResult result = engine.run();
+
+  Solution solution;
+  solution.outcome = result.outcome;
+  solution.x = std::move(result.x);
+  solution.y = std::move(result.y);
+  solution.ray = std::move(result.ray);
+  solution.basis = std::move(result.basis);
+  solution.stop_reason = result.stop_reason;
+  solution.stats = correction_stats;
+  solution.stats.exact_iterations = result.iterations;
+  solution.stats.phase = result.phase;
+  solution.stats.repaired = start && (repaired || result.iterations > 0 || correction_stats.correction_rounds > 0);
+  if (solution.outcome == Outcome::optimal) solution.objective = model.objective_value(solution.x);
+  return solution;
+}
 
 // Runs the exact engine from the given basis (or from the logical basis when null).  `found`, the
 // float search's result ending at that basis, lets its claim be proven without pivots: optimality
@@ -41,36 +110,6 @@ Solution run_exact(const model::Model& model, const SolveOptions& options, const
   return solution;
 }
 
-// The exact engine's part of run_exact.
-Solution engine_solution(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
-                         const simplex::FloatResult* found) {
-  detail::Engine engine(model, options.budget, &options.progress);
-  bool repaired = false;
-  if (!start) {
-    engine.start_from_logicals();
-  } else if (found && found->status != simplex::FloatStatus::optimal) {
-    repaired = engine.start_from(*start);
-    if (found->status == simplex::FloatStatus::infeasible) engine.certify_infeasible_row(found->ray_variable);
-    else if (found->status == simplex::FloatStatus::unbounded) engine.certify_ray(found->ray_variable);
-  } else if (!engine.certify_by_refinement(*start)) {
-    repaired = engine.start_from(*start);
-  }
-  detail::EngineResult result = engine.run();
-
-  Solution solution;
-  solution.outcome = result.outcome;
-  solution.x = std::move(result.x);
-  solution.y = std::move(result.y);
-  solution.ray = std::move(result.ray);
-  solution.basis = std::move(result.basis);
-  solution.stop_reason = result.stop_reason;
-  solution.stats.exact_iterations = result.iterations;
-  solution.stats.phase = result.phase;
-  solution.stats.repaired = start && (repaired || result.iterations > 0);
-  if (solution.outcome == Outcome::optimal) solution.objective = model.objective_value(solution.x);
-  return solution;
-}
-
 certificate::NamedValues named_nonzeros(const std::vector<Rational>& values, auto name_of) {
   certificate::NamedValues named;
   for (std::size_t k = 0; k < values.size(); ++k)
@@ -87,12 +126,7 @@ Solution solve(const model::Model& model, const SolveOptions& options) {
   auto clock = std::chrono::steady_clock::now();
   simplex::FloatOptions search;
   search.budget = options.budget;
-  if (options.progress) {
-    search.progress = [&options, clock](const simplex::FloatProgress& p) {
-      double elapsed = options.budget ? options.budget->elapsed_seconds() : seconds_since(clock);
-      options.progress(Progress{"float " + p.phase, p.iterations, p.objective, p.infeasibility, elapsed});
-    };
-  }
+  search.progress = float_progress(options, "float ");
   simplex::FloatResult found = simplex::solve_float(model, search);
   double float_seconds = seconds_since(clock);
   Solution solution;

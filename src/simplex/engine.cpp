@@ -268,7 +268,7 @@ int Engine::count_dual_infeasible(bool boxed_too) const {
 
 double Engine::objective() const {
   double v = 0;
-  for (int j = 0; j < n_; ++j) v += lp_.cost[j] * x_[j];
+  for (int j = 0; j < n_ + m_; ++j) v += lp_.cost[j] * x_[j];  // logicals cost only in a correction problem
   return v;
 }
 

@@ -9,6 +9,13 @@ namespace plumb::simplex {
 FloatResult solve_float(const model::Model& model, const FloatOptions& options) {
   FloatResult result;
   detail::LpData lp = detail::lp_from_model(model);
+  if (const CorrectionProblem* correction = options.correction) {
+    lp.lower = correction->lower;
+    lp.upper = correction->upper;
+    lp.cost = correction->cost;
+    lp.sense = 1;
+    lp.constant = 0;
+  }
   detail::scale(lp);
   const int n = lp.columns, m = lp.rows;
   for (int j = 0; j < lp.variables(); ++j) {

@@ -122,6 +122,7 @@ void scale(LpData& lp) {
   for (int i = 0; i < m; ++i) {
     lp.lower[n + i] *= r[i];
     lp.upper[n + i] *= r[i];
+    lp.cost[n + i] /= r[i];  // nonzero only in a correction problem
     lp.row_scale[i] = r[i];
   }
   build_rows(lp);

@@ -139,13 +139,18 @@ def agreement(result, published):
 
 
 def seconds_text(value):
-    return "" if value is None else f"{value:.3f}"
+    return "" if value is None else f"{value:.4f}"
 
 
 def table_row(result, published):
     stats = result.get("stats", {})
     notes = []
-    if stats.get("repaired"):
+    if stats.get("correction_rounds"):
+        rounds = stats["correction_rounds"]
+        notes.append(f"{rounds} correction round{'s' if rounds > 1 else ''} ({stats.get('correction_iterations', 0)} float iterations)")
+    if stats.get("exact_iterations") and not stats.get("fell_back"):
+        notes.append("exact repair pivots")
+    elif stats.get("repaired") and not stats.get("correction_rounds"):
         notes.append("repaired")
     if stats.get("fell_back"):
         notes.append(f"fell back: exact engine {stats.get('exact_seconds', 0):.3f} s")

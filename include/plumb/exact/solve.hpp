@@ -44,7 +44,9 @@ struct SolveStats {
   double exact_seconds = 0;
   long float_iterations = 0;
   long exact_iterations = 0;
-  bool repaired = false;       // the float basis needed exact pivots
+  int correction_rounds = 0;       // float re-solves of a correction problem before certification
+  long correction_iterations = 0;  // their float iterations
+  bool repaired = false;       // the starting basis was not optimal exactly: corrected or pivoted
   bool fell_back = false;      // the float phase failed and the exact engine solved from scratch
   std::string float_note;      // why the float phase failed, when it did
   std::string phase;           // the exact phase last run (how far a stopped solve got)

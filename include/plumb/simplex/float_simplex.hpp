@@ -7,6 +7,7 @@
 
 #include <functional>
 #include <string>
+#include <vector>
 
 namespace plumb::simplex {
 
@@ -19,9 +20,20 @@ struct FloatProgress {
   double infeasibility = 0;
 };
 
+// Bounds and costs that replace the model's, on the model's own matrix: the correction problem
+// of LP iterative refinement (A. M. Gleixner, D. E. Steffy and K. Wolter, "Iterative refinement
+// for linear programming", INFORMS J. Computing 28, 2016).  Its solution is a scaled step from a
+// point computed exactly elsewhere, so violations far below double precision there are of order
+// one here.
+struct CorrectionProblem {
+  std::vector<double> lower, upper;  // per variable: columns, then row logicals; +-inf when none
+  std::vector<double> cost;          // per variable, minimised
+};
+
 struct FloatOptions {
   run::Budget* budget = nullptr;              // polled every iteration when set
   const Basis* warm_start = nullptr;          // start from this basis when given
+  const CorrectionProblem* correction = nullptr;  // solve this instead of the model's bounds and costs
   std::function<void(const FloatProgress&)> progress;
 };
 
