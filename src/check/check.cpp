@@ -19,6 +19,14 @@ using numeric::Rational;
 
 enum class Kind { row, column };
 
+// Deferred wording of a column or row, for the require_ functions.
+auto column_text(const Model& m, int j) {
+  return [&m, j] { return detail::column_text(m, j); };
+}
+auto row_text(const Model& m, int i) {
+  return [&m, i] { return detail::row_text(m, i); };
+}
+
 std::string in_parentheses(const std::string& note) { return note.empty() ? "" : " (" + note + ")"; }
 
 // Names resolved to a dense vector; an unknown or repeated name fails.
@@ -100,43 +108,45 @@ Rational pressed(const Rational& v, const Side& when_positive, const Side& when_
   return 0;
 }
 
-void require_within(const std::string& what, const char* quantity, const Rational& v, const Side& lower,
-                    const Side& upper, const char* noun) {
-  const std::string head = "x is not feasible: " + what + ": " + quantity + " = " + amount(v);
+// `what` names the row or column; it is called only to word a failure (the checks run per row and
+// column, and wording each in advance cost more than checking it).
+void require_within(const auto& what, const char* quantity, const Rational& v, const Side& lower, const Side& upper,
+                    const char* noun) {
+  auto head = [&] { return "x is not feasible: " + what() + ": " + quantity + " = " + amount(v); };
   if (lower && v < *lower)
-    throw Failure{head + " is below its lower " + noun + " " + amount(*lower) + " by " + amount(*lower - v)};
+    throw Failure{head() + " is below its lower " + noun + " " + amount(*lower) + " by " + amount(*lower - v)};
   if (upper && v > *upper)
-    throw Failure{head + " is above its upper " + noun + " " + amount(*upper) + " by " + amount(v - *upper)};
+    throw Failure{head() + " is above its upper " + noun + " " + amount(*upper) + " by " + amount(v - *upper)};
 }
 
 void require_feasible(const Model& m, const std::vector<Rational>& x) {
   for (int j = 0; j < m.column_count(); ++j)
-    require_within(detail::column_text(m, j), "x", x[j], m.columns[j].lower, m.columns[j].upper, "bound");
+    require_within(column_text(m, j), "x", x[j], m.columns[j].lower, m.columns[j].upper, "bound");
   std::vector<Rational> ax = times(m, x);
   for (int i = 0; i < m.row_count(); ++i)
-    require_within(detail::row_text(m, i), "a.x", ax[i], m.rows[i].lower, m.rows[i].upper, "side");
+    require_within(row_text(m, i), "a.x", ax[i], m.rows[i].lower, m.rows[i].upper, "side");
 }
 
 // A multiplier may be positive only against a finite limit it presses on, negative likewise.
-void require_sign(const std::string& what, const char* quantity, const Rational& v, const Side& when_positive,
+void require_sign(const auto& what, const char* quantity, const Rational& v, const Side& when_positive,
                   const char* positive_limit, const Side& when_negative, const char* negative_limit) {
   if (v > 0 && !when_positive)
-    throw Failure{what + ": " + quantity + " = " + amount(v) + " is positive, which needs a finite " + positive_limit +
+    throw Failure{what() + ": " + quantity + " = " + amount(v) + " is positive, which needs a finite " + positive_limit +
                   ", and there is none"};
   if (v < 0 && !when_negative)
-    throw Failure{what + ": " + quantity + " = " + amount(v) + " is negative, which needs a finite " + negative_limit +
+    throw Failure{what() + ": " + quantity + " = " + amount(v) + " is negative, which needs a finite " + negative_limit +
                   ", and there is none"};
 }
 
 // Along a ray a quantity may fall only where nothing is below it, and rise only where nothing is above.
-void require_unlimited(const std::string& what, const char* quantity, const Rational& v, const Side& lower,
+void require_unlimited(const auto& what, const char* quantity, const Rational& v, const Side& lower,
                        const Side& upper, const char* noun) {
-  const std::string head = "ray: " + what + ": " + quantity + " = " + amount(v);
+  auto head = [&] { return "ray: " + what() + ": " + quantity + " = " + amount(v); };
   if (v < 0 && lower)
-    throw Failure{head + " is negative, but the lower " + noun + " " + amount(*lower) +
+    throw Failure{head() + " is negative, but the lower " + noun + " " + amount(*lower) +
                   " is finite, so the ray leaves the model"};
   if (v > 0 && upper)
-    throw Failure{head + " is positive, but the upper " + noun + " " + amount(*upper) +
+    throw Failure{head() + " is positive, but the upper " + noun + " " + amount(*upper) +
                   " is finite, so the ray leaves the model"};
 }
 
@@ -158,14 +168,14 @@ Verdict verify_optimal(const Model& m, const Certificate& c, const detail::Objec
   Rational bound = 0;  // weak duality: c'.x >= bound for every feasible x
   for (int i = 0; i < m.row_count(); ++i) {
     const model::Row& row = m.rows[i];
-    require_sign(detail::row_text(m, i), "multiplier y", y[i], row.lower, "lower side", row.upper, "upper side");
+    require_sign(row_text(m, i), "multiplier y", y[i], row.lower, "lower side", row.upper, "upper side");
     bound += pressed(y[i], row.lower, row.upper);
   }
   std::vector<Rational> aty = transpose_times(m, y);
   for (int j = 0; j < m.column_count(); ++j) {
     const model::Column& column = m.columns[j];
     Rational d = min_cost(m, j) - aty[j];
-    require_sign(detail::column_text(m, j), "reduced cost d = c' - A^T y", d, column.lower, "lower bound",
+    require_sign(column_text(m, j), "reduced cost d = c' - A^T y", d, column.lower, "lower bound",
                  column.upper, "upper bound");
     bound += pressed(d, column.lower, column.upper);
   }
@@ -189,14 +199,14 @@ Verdict verify_infeasible(const Model& m, const Certificate& c) {
   Rational rows_force = 0;  // every x meeting the rows has y.Ax >= rows_force
   for (int i = 0; i < m.row_count(); ++i) {
     const model::Row& row = m.rows[i];
-    require_sign(detail::row_text(m, i), "Farkas multiplier y", y[i], row.lower, "lower side", row.upper, "upper side");
+    require_sign(row_text(m, i), "Farkas multiplier y", y[i], row.lower, "lower side", row.upper, "upper side");
     rows_force += pressed(y[i], row.lower, row.upper);
   }
   std::vector<Rational> a = transpose_times(m, y);
   Rational bounds_allow = 0;  // every x within its bounds has y.Ax = a.x <= bounds_allow
   for (int j = 0; j < m.column_count(); ++j) {
     const model::Column& column = m.columns[j];
-    require_sign(detail::column_text(m, j), "(A^T y)", a[j], column.upper, "upper bound", column.lower, "lower bound");
+    require_sign(column_text(m, j), "(A^T y)", a[j], column.upper, "upper bound", column.lower, "lower bound");
     bounds_allow += pressed(a[j], column.upper, column.lower);
   }
   if (rows_force <= bounds_allow)
@@ -212,10 +222,10 @@ Verdict verify_unbounded(const Model& m, const Certificate& c, const detail::Obj
   std::vector<Rational> r = dense(m, c.ray, Kind::column, "ray");
   require_feasible(m, x);
   for (int j = 0; j < m.column_count(); ++j)
-    require_unlimited(detail::column_text(m, j), "r", r[j], m.columns[j].lower, m.columns[j].upper, "bound");
+    require_unlimited(column_text(m, j), "r", r[j], m.columns[j].lower, m.columns[j].upper, "bound");
   std::vector<Rational> ar = times(m, r);
   for (int i = 0; i < m.row_count(); ++i)
-    require_unlimited(detail::row_text(m, i), "(A r)", ar[i], m.rows[i].lower, m.rows[i].upper, "side");
+    require_unlimited(row_text(m, i), "(A r)", ar[i], m.rows[i].lower, m.rows[i].upper, "side");
   Rational slope = min_cost_dot(m, r);
   if (slope >= 0)
     throw Failure{"ray: the objective does not improve along the ray: c.r = " + amount(objective.direction(slope)) +

@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <iterator>
 #include <limits>
 #include <stdexcept>
 
@@ -794,14 +795,15 @@ void Engine::fill_result(EngineResult& result, Step step) {
   result.iterations = iterations_;
   result.repaired = repaired_;
   result.phase = phase_;
-  result.x.assign(value_.begin(), value_.begin() + n_);
+  // The values move out: run() is the engine's last use (long fractions are costly to copy).
+  result.x.assign(std::make_move_iterator(value_.begin()), std::make_move_iterator(value_.begin() + n_));
   result.basis.columns.assign(status_.begin(), status_.begin() + n_);
   result.basis.rows.assign(status_.begin() + n_, status_.end());
   switch (step) {
     case Step::done:
       result.outcome = Outcome::optimal;
       result.y.assign(static_cast<std::size_t>(m_), Rational(0));
-      for (int i : duals_.pattern()) result.y[i] = duals_[i];
+      for (int i : duals_.pattern()) duals_.swap_out(i, result.y[i]);
       break;
     case Step::infeasible:
       result.outcome = Outcome::infeasible;

@@ -62,7 +62,8 @@ class Engine {
   bool certify_ray(int variable);
 
   // Runs from the current basis: nothing when it is already optimal, dual simplex when it is dual
-  // feasible, otherwise primal simplex with phase 1 as needed.
+  // feasible, otherwise primal simplex with phase 1 as needed.  Called once: the result takes
+  // the engine's values.
   EngineResult run();
 
  private:

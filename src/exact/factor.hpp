@@ -47,6 +47,7 @@ class SparseVector {
   void tidy();
   // Exchanges the values at a position with `value` (mpq swap: no copy).
   void swap_in(int i, Rational& value) { at(i).backend().swap(value.backend()); }
+  void swap_out(int i, Rational& value) { values_[i].backend().swap(value.backend()); }
 
  private:
   std::vector<Rational> values_;

@@ -50,8 +50,10 @@ RefinedSolver::IntegerMatrix RefinedSolver::scaled(int m, const std::vector<Spar
   // Row i of M is row i of B, or column i of B when transposed.
   for (int j = 0; j < m; ++j)
     for (std::size_t e = 0; e < columns[j].rows.size(); ++e) {
+      mpz_srcptr denominator = mpq_denref(columns[j].values[e].backend().data());
+      if (mpz_cmp_ui(denominator, 1) == 0) continue;  // most entries are integers: nothing to do
       Integer& d = matrix.scale[transposed ? j : columns[j].rows[e]];
-      mpz_lcm(z(d), z(d), mpq_denref(columns[j].values[e].backend().data()));
+      mpz_lcm(z(d), z(d), denominator);
     }
   std::vector<int> count(static_cast<std::size_t>(m) + 1, 0);
   for (int j = 0; j < m; ++j)
@@ -69,8 +71,12 @@ RefinedSolver::IntegerMatrix RefinedSolver::scaled(int m, const std::vector<Spar
       matrix.index[slot] = row;
       const mpq_t& q = columns[j].values[e].backend().data();
       Integer& v = matrix.value[slot];
-      mpz_divexact(z(v), z(matrix.scale[row]), mpq_denref(q));
-      mpz_mul(z(v), z(v), mpq_numref(q));
+      if (mpz_cmp(z(matrix.scale[row]), mpq_denref(q)) == 0) {
+        mpz_set(z(v), mpq_numref(q));
+      } else {
+        mpz_divexact(z(v), z(matrix.scale[row]), mpq_denref(q));
+        mpz_mul(z(v), z(v), mpq_numref(q));
+      }
     }
   matrix.scale_mantissa.resize(static_cast<std::size_t>(m));
   matrix.scale_exponent.resize(static_cast<std::size_t>(m));
@@ -112,7 +118,8 @@ std::optional<std::vector<Rational>> RefinedSolver::solve_transposed(const std::
 // work_ = M^-1 (r / 2^shift) in double, with shift chosen so that r / (D 2^shift) is of order one.
 void RefinedSolver::float_solve(const IntegerMatrix& matrix, bool transposed, long& shift) {
   shift = std::numeric_limits<long>::min();
-  std::vector<long> exponents(static_cast<std::size_t>(m_), 0);
+  std::vector<long>& exponents = exponents_;
+  exponents.assign(static_cast<std::size_t>(m_), 0);
   work_.assign(static_cast<std::size_t>(m_), 0.0);
   for (int i = 0; i < m_; ++i) {
     if (mpz_sgn(z(residual_[i])) == 0) continue;

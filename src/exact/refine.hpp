@@ -98,6 +98,7 @@ class RefinedSolver {
   long recent_bits_ = 0;     // b
   Integer seed_ = 0;         // least common denominator of the last verified answer, 0 before one
   std::vector<double> work_;
+  std::vector<long> exponents_;  // float_solve(): binary exponents of the residual over D
 };
 
 }  // namespace plumb::exact::detail

@@ -50,7 +50,8 @@ std::string to_display(const Rational& value, int significant = 12);
 constexpr std::size_t readable_fraction_length = 24;
 std::string exact_and_decimal(const Rational& value);
 
-// A double within one ulp (GMP truncates), for floating-point search only: never for a decision.
+// A double within one ulp (rounded to nearest when numerator and denominator are below 2^53, else
+// truncated by GMP), for floating-point search and filters only: never for a decision on its own.
 double to_double(const Rational& value);
 
 }  // namespace plumb::numeric
