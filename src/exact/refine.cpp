@@ -61,8 +61,9 @@ RefinedSolver::IntegerMatrix RefinedSolver::scaled(int m, const std::vector<Spar
   matrix.start.assign(static_cast<std::size_t>(m) + 1, 0);
   for (int c = 0; c < m; ++c) matrix.start[c + 1] = matrix.start[c] + count[c + 1];
   matrix.index.resize(static_cast<std::size_t>(matrix.start[m]));
-  matrix.value.resize(static_cast<std::size_t>(matrix.start[m]));
+  matrix.small.resize(static_cast<std::size_t>(matrix.start[m]));
   std::vector<int> fill(matrix.start.begin(), matrix.start.end() - 1);
+  Integer entry;
   for (int j = 0; j < m; ++j)
     for (std::size_t e = 0; e < columns[j].rows.size(); ++e) {
       int r = columns[j].rows[e];
@@ -70,12 +71,18 @@ RefinedSolver::IntegerMatrix RefinedSolver::scaled(int m, const std::vector<Spar
       int slot = fill[column]++;
       matrix.index[slot] = row;
       const mpq_t& q = columns[j].values[e].backend().data();
-      Integer& v = matrix.value[slot];
       if (mpz_cmp(z(matrix.scale[row]), mpq_denref(q)) == 0) {
-        mpz_set(z(v), mpq_numref(q));
+        mpz_set(z(entry), mpq_numref(q));
       } else {
-        mpz_divexact(z(v), z(matrix.scale[row]), mpq_denref(q));
-        mpz_mul(z(v), z(v), mpq_numref(q));
+        mpz_divexact(z(entry), z(matrix.scale[row]), mpq_denref(q));
+        mpz_mul(z(entry), z(entry), mpq_numref(q));
+      }
+      if (mpz_fits_slong_p(z(entry))) {
+        matrix.small[slot] = mpz_get_si(z(entry));
+      } else {
+        if (matrix.large.empty()) matrix.large.resize(matrix.small.size());
+        matrix.small[slot] = 0;
+        matrix.large[slot] = entry;
       }
     }
   matrix.scale_mantissa.resize(static_cast<std::size_t>(m));
@@ -138,9 +145,15 @@ void RefinedSolver::float_solve(const IntegerMatrix& matrix, bool transposed, lo
 void RefinedSolver::subtract_product(const IntegerMatrix& matrix, const std::vector<Integer>& values,
                                      std::vector<Integer>& target) {
   for (int j = 0; j < m_; ++j) {
-    if (mpz_sgn(z(values[j])) == 0) continue;
-    for (int p = matrix.start[j]; p < matrix.start[j + 1]; ++p)
-      mpz_submul(z(target[matrix.index[p]]), z(matrix.value[p]), z(values[j]));
+    mpz_srcptr factor = z(values[j]);
+    if (mpz_sgn(factor) == 0) continue;
+    for (int p = matrix.start[j]; p < matrix.start[j + 1]; ++p) {
+      mpz_ptr row = z(target[matrix.index[p]]);
+      const long entry = matrix.small[p];
+      if (entry > 0) mpz_submul_ui(row, factor, static_cast<unsigned long>(entry));
+      else if (entry < 0) mpz_addmul_ui(row, factor, 0UL - static_cast<unsigned long>(entry));
+      else mpz_submul(row, z(matrix.large[p]), factor);
+    }
   }
 }
 
@@ -213,21 +226,24 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
     }
     if (exponent_ > limits_.max_bits) return std::nullopt;
 
-    // One step: c = round(2^(step + shift) w), N <- 2^step N + c, r <- 2^step r - M c.
+    // One step: c = round(2^(depth + shift) w), N <- 2^depth N + c, r <- 2^depth r - M c.  The
+    // step takes `step` bits of M^-1 r below its leading one; when the solution lies far below
+    // one (huge matrix entries), those bits start 2^-error_bits further down, and so does depth.
     ++stats_.iterations;
-    const long scale = step + shift;
+    const long depth = step + std::max(0L, -error_bits);
+    const long scale = depth + shift;
     const int direct = static_cast<int>(std::min(scale, 900L));
     for (int j = 0; j < m_; ++j) {
       mpz_set_d(z(correction_[j]), std::nearbyint(std::ldexp(work_[j], direct)));
       if (scale > direct) mpz_mul_2exp(z(correction_[j]), z(correction_[j]), static_cast<mp_bitcnt_t>(scale - direct));
-      mpz_mul_2exp(z(recent_[j]), z(recent_[j]), static_cast<mp_bitcnt_t>(step));
+      mpz_mul_2exp(z(recent_[j]), z(recent_[j]), static_cast<mp_bitcnt_t>(depth));
       mpz_add(z(recent_[j]), z(recent_[j]), z(correction_[j]));
     }
-    recent_bits_ += step;
+    recent_bits_ += depth;
     if (recent_bits_ >= recent_limit_bits) fold_recent();
-    for (Integer& r : residual_) mpz_mul_2exp(z(r), z(r), static_cast<mp_bitcnt_t>(step));
+    for (Integer& r : residual_) mpz_mul_2exp(z(r), z(r), static_cast<mp_bitcnt_t>(depth));
     subtract_product(matrix, correction_, residual_);
-    exponent_ += step;
+    exponent_ += depth;
     stats_.bits = exponent_;
     if (all_zero(residual_)) {
       // N / 2^E is the exact solution.
@@ -241,7 +257,7 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
     // Bits of accuracy this step gained; the next step asks for as many (Wan 2006 picks the
     // scale from the residual norm to the same end: the integer residual must not grow).
     long new_bits = max_bits(residual_);
-    long gain = step - (new_bits - residual_bits);
+    long gain = depth - (new_bits - residual_bits);
     residual_bits = new_bits;
     // A few bits a step means the float LU is too inaccurate for B: the rational LU will do better.
     stalls = gain < min_gain ? stalls + 1 : 0;

@@ -65,7 +65,11 @@ class RefinedSolver {
   // denominator, column-wise.
   struct IntegerMatrix {
     std::vector<int> start, index;
-    std::vector<Integer> value;
+    // Entries (never zero) in `small` when they fit a long, nearly always: decimal data scale to
+    // short integers, and GMP's single-limb multiply then serves.  Otherwise `small` holds 0 and
+    // `large`, empty while no entry needs it, holds the entry.
+    std::vector<long> small;
+    std::vector<Integer> large;
     std::vector<double> scale_mantissa;  // D_i = scale_mantissa_i * 2^scale_exponent_i, roughly
     std::vector<long> scale_exponent;
     std::vector<Integer> scale;          // D_i exactly

@@ -148,6 +148,22 @@ TEST(Refine, LargeDenominatorsAreRecovered) {
   EXPECT_EQ(compare_routes(m, columns, b), 2);
 }
 
+TEST(Refine, EntriesBeyondSixtyFourBitsAreExact) {
+  // Constructed case: diagonal entries 2^70 + j beside entries 1/3 and -1 below them, so that the
+  // integer-scaled matrix holds entries both within and beyond a machine word.
+  const Rational big = Rational(numeric::Integer(1) << 70);
+  int m = 8;
+  Columns columns(static_cast<std::size_t>(m));
+  for (int j = 0; j < m; ++j) {
+    columns[j].rows = {j};
+    columns[j].values = {big + j};
+    if (j + 1 < m) columns[j].rows.push_back(j + 1), columns[j].values.push_back(j % 2 == 0 ? Rational(1, 3) : Rational(-1));
+  }
+  std::vector<Rational> b(static_cast<std::size_t>(m));
+  for (int i = 0; i < m; ++i) b[i] = Rational(i + 1, 2);
+  EXPECT_EQ(compare_routes(m, columns, b), 2);
+}
+
 TEST(Refine, SingularMatricesAreRefused) {
   // Two equal columns.
   Columns columns(3);
