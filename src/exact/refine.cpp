@@ -297,18 +297,20 @@ bool RefinedSolver::reconstruct(const IntegerMatrix& matrix, long error_bits, co
     mpz_mul_2exp(z(allowed), z(denominator), static_cast<mp_bitcnt_t>(slack_bits));
     return mpz_cmpabs(z(difference), z(allowed)) <= 0;
   };
+  // The first guess tried for every component, with its half unit 2^(E-1) and its allowance
+  // Q 2^slack kept from one component to the next.
+  Integer half, allowance, rest;
+  if (e > 0) mpz_setbit(z(half), e - 1);
+  mpz_mul_2exp(z(allowance), z(common), static_cast<mp_bitcnt_t>(slack_bits));
   for (int j = 0; j < m_; ++j) {
-    // First guess: the denominator found so far (Wan 2006; Cook and Steffy 2011).
+    // First guess: the denominator found so far (Wan 2006; Cook and Steffy 2011),
+    // p = floor((N_j Q + 2^(E-1)) / 2^E), within the error bound when |N_j Q - p 2^E| <= Q 2^slack.
     mpz_mul(z(a), z(numerator_[j]), z(common));
-    if (e > 0) {
-      mpz_set_ui(z(p), 1);
-      mpz_mul_2exp(z(p), z(p), e - 1);
-      mpz_add(z(p), z(p), z(a));
-      mpz_fdiv_q_2exp(z(p), z(p), e);
-    } else {
-      p = a;
-    }
-    if (close_enough(a, p, common)) {
+    mpz_add(z(rest), z(a), z(half));
+    mpz_fdiv_q_2exp(z(p), z(rest), e);
+    mpz_fdiv_r_2exp(z(rest), z(rest), e);
+    mpz_sub(z(rest), z(rest), z(half));
+    if (mpz_cmpabs(z(rest), z(allowance)) <= 0) {
       candidate_[j] = p;
       continue;
     }
@@ -331,6 +333,7 @@ bool RefinedSolver::reconstruct(const IntegerMatrix& matrix, long error_bits, co
     if (!close_enough(scaled_numerator, p, denominator)) return false;
     candidate_[j] = p;
     mpz_mul(z(common), z(common), z(q));
+    mpz_mul_2exp(z(allowance), z(common), static_cast<mp_bitcnt_t>(slack_bits));
     factors.emplace_back(j, std::move(q));
   }
   // Bring every numerator to the final common denominator: component j still needs the factors
@@ -355,14 +358,17 @@ bool RefinedSolver::prove(const IntegerMatrix& matrix, Integer common, std::vect
   mpz_mul(z(common), z(common), z(rhs_denominator_));
   common_denominator_ = common;
   answer.resize(static_cast<std::size_t>(m_));
-  mpz_set_ui(z(seed_), 1);
+  // The seed, the least common denominator of the answer, is C / gcd(C, p_1, ..., p_m) for the
+  // common denominator C: the running gcd soon reaches a short number, unlike a running lcm.
+  Integer shared = common;
   for (int j = 0; j < m_; ++j) {
     mpq_ptr x = answer[j].backend().data();
     mpz_set(mpq_numref(x), z(candidate_[j]));
     mpz_set(mpq_denref(x), z(common));
     mpq_canonicalize(x);
-    mpz_lcm(z(seed_), z(seed_), mpq_denref(x));
+    if (mpz_cmp_ui(z(shared), 1) != 0) mpz_gcd(z(shared), z(shared), z(candidate_[j]));
   }
+  mpz_divexact(z(seed_), z(common), z(shared));
   return true;
 }
 
