@@ -46,44 +46,34 @@ std::vector<Rational> dense(const Model& m, const NamedValues& values, Kind kind
   return out;
 }
 
-// v as N / L: integers N over the least common denominator L.  A sum of products with v then adds
-// fractions with the small denominators of matrix entries, and the one division by L per sum is
-// its only gcd of long numbers.  (At bases with long determinants a certificate holds thousands
-// of fractions of thousands of digits whose denominators all divide one number; summing them
-// directly took a gcd of long numbers per matrix entry.)
-Integer over_common_denominator(const std::vector<Rational>& v, std::vector<Rational>& numerators) {
-  Integer common = 1;
-  for (const Rational& q : v)
-    if (common % denominator(q) != 0) common = lcm(common, denominator(q));
-  numerators.resize(v.size());
-  for (std::size_t k = 0; k < v.size(); ++k) numerators[k] = numerator(v[k]) * (common / denominator(v[k]));
-  return common;
-}
+// Sums over a certificate vector v are kept scaled: with v = N / L (numeric::over_common_denominator)
+// the checker sums products with N, whose terms carry only the matrix's and the sides' short
+// denominators, and compares w = (the quantity) * L with each side times L.  The quantity itself,
+// w / L, is formed only for a verdict's wording.  (Summing v directly cost a gcd of long numbers
+// per term: thousands of digits each at bases with long determinants.)
+using numeric::CommonDenominator;
+using numeric::over_common_denominator;
+
+const Integer unscaled = 1;
 
 std::vector<Rational> times(const Model& m, const std::vector<Rational>& x) {  // A x
-  std::vector<Rational> numerators;
-  Integer common = over_common_denominator(x, numerators);
   std::vector<Rational> out(static_cast<std::size_t>(m.row_count()));
   for (int j = 0; j < m.column_count(); ++j) {
-    if (numerators[j] == 0) continue;
+    if (x[j] == 0) continue;
     auto rows = m.matrix.column_rows(j);
     auto values = m.matrix.column_values(j);
-    for (std::size_t k = 0; k < rows.size(); ++k) out[rows[k]] += values[k] * numerators[j];
+    for (std::size_t k = 0; k < rows.size(); ++k) out[rows[k]] += values[k] * x[j];
   }
-  for (Rational& v : out) v /= common;
   return out;
 }
 
 std::vector<Rational> transpose_times(const Model& m, const std::vector<Rational>& y) {  // A^T y
-  std::vector<Rational> numerators;
-  Integer common = over_common_denominator(y, numerators);
   std::vector<Rational> out(static_cast<std::size_t>(m.column_count()));
   for (int j = 0; j < m.column_count(); ++j) {
     auto rows = m.matrix.column_rows(j);
     auto values = m.matrix.column_values(j);
     for (std::size_t k = 0; k < rows.size(); ++k)
-      if (numerators[rows[k]] != 0) out[j] += values[k] * numerators[rows[k]];
-    out[j] /= common;
+      if (y[rows[k]] != 0) out[j] += values[k] * y[rows[k]];
   }
   return out;
 }
@@ -94,58 +84,64 @@ Rational min_cost(const Model& m, int j) {
   return m.objective.sense == model::Sense::maximise ? Rational(-c) : c;
 }
 
-Rational min_cost_dot(const Model& m, const std::vector<Rational>& v) {
+// c'.v for v held as N / L.
+Rational min_cost_dot(const Model& m, const CommonDenominator& v) {
   Rational sum = 0;
   for (int j = 0; j < m.column_count(); ++j)
-    if (v[j] != 0) sum += min_cost(m, j) * v[j];
-  return sum;
+    if (v.numerators[j] != 0) sum += min_cost(m, j) * v.numerators[j];
+  return sum / v.denominator;
 }
 
-// v times the side its sign presses on; the sign rules have made sure that side is finite.
-Rational pressed(const Rational& v, const Side& when_positive, const Side& when_negative) {
-  if (v > 0) return v * *when_positive;
-  if (v < 0) return v * *when_negative;
+// w times the side its sign presses on; the sign rules have made sure that side is finite.
+Rational pressed(const Rational& w, const Side& when_positive, const Side& when_negative) {
+  if (w > 0) return w * *when_positive;
+  if (w < 0) return w * *when_negative;
   return 0;
 }
 
-// `what` names the row or column; it is called only to word a failure (the checks run per row and
-// column, and wording each in advance cost more than checking it).
-void require_within(const auto& what, const char* quantity, const Rational& v, const Side& lower, const Side& upper,
-                    const char* noun) {
-  auto head = [&] { return "x is not feasible: " + what() + ": " + quantity + " = " + amount(v); };
-  if (lower && v < *lower)
-    throw Failure{head() + " is below its lower " + noun + " " + amount(*lower) + " by " + amount(*lower - v)};
-  if (upper && v > *upper)
-    throw Failure{head() + " is above its upper " + noun + " " + amount(*upper) + " by " + amount(v - *upper)};
+// In the require_ functions the quantity is w / scale.  `what` names the row or column; it is
+// called only to word a failure (the checks run per row and column, and wording each in advance
+// cost more than checking it).
+void require_within(const auto& what, const char* quantity, const Rational& w, const Integer& scale, const Side& lower,
+                    const Side& upper, const char* noun) {
+  auto head = [&] { return "x is not feasible: " + what() + ": " + quantity + " = " + amount(w / scale); };
+  if (lower && w < *lower * scale)
+    throw Failure{head() + " is below its lower " + noun + " " + amount(*lower) + " by " + amount(*lower - w / scale)};
+  if (upper && w > *upper * scale)
+    throw Failure{head() + " is above its upper " + noun + " " + amount(*upper) + " by " + amount(w / scale - *upper)};
 }
 
-void require_feasible(const Model& m, const std::vector<Rational>& x) {
+// Returns x over its common denominator, for the sums that follow.
+CommonDenominator require_feasible(const Model& m, const std::vector<Rational>& x) {
   for (int j = 0; j < m.column_count(); ++j)
-    require_within(column_text(m, j), "x", x[j], m.columns[j].lower, m.columns[j].upper, "bound");
-  std::vector<Rational> ax = times(m, x);
+    require_within(column_text(m, j), "x", x[j], unscaled, m.columns[j].lower, m.columns[j].upper, "bound");
+  CommonDenominator scaled = over_common_denominator(x);
+  std::vector<Rational> ax = times(m, scaled.numerators);
   for (int i = 0; i < m.row_count(); ++i)
-    require_within(row_text(m, i), "a.x", ax[i], m.rows[i].lower, m.rows[i].upper, "side");
+    require_within(row_text(m, i), "a.x", ax[i], scaled.denominator, m.rows[i].lower, m.rows[i].upper, "side");
+  return scaled;
 }
 
 // A multiplier may be positive only against a finite limit it presses on, negative likewise.
-void require_sign(const auto& what, const char* quantity, const Rational& v, const Side& when_positive,
-                  const char* positive_limit, const Side& when_negative, const char* negative_limit) {
-  if (v > 0 && !when_positive)
-    throw Failure{what() + ": " + quantity + " = " + amount(v) + " is positive, which needs a finite " + positive_limit +
-                  ", and there is none"};
-  if (v < 0 && !when_negative)
-    throw Failure{what() + ": " + quantity + " = " + amount(v) + " is negative, which needs a finite " + negative_limit +
-                  ", and there is none"};
+void require_sign(const auto& what, const char* quantity, const Rational& w, const Integer& scale,
+                  const Side& when_positive, const char* positive_limit, const Side& when_negative,
+                  const char* negative_limit) {
+  if (w > 0 && !when_positive)
+    throw Failure{what() + ": " + quantity + " = " + amount(w / scale) + " is positive, which needs a finite " +
+                  positive_limit + ", and there is none"};
+  if (w < 0 && !when_negative)
+    throw Failure{what() + ": " + quantity + " = " + amount(w / scale) + " is negative, which needs a finite " +
+                  negative_limit + ", and there is none"};
 }
 
 // Along a ray a quantity may fall only where nothing is below it, and rise only where nothing is above.
-void require_unlimited(const auto& what, const char* quantity, const Rational& v, const Side& lower,
-                       const Side& upper, const char* noun) {
-  auto head = [&] { return "ray: " + what() + ": " + quantity + " = " + amount(v); };
-  if (v < 0 && lower)
+void require_unlimited(const auto& what, const char* quantity, const Rational& w, const Integer& scale,
+                       const Side& lower, const Side& upper, const char* noun) {
+  auto head = [&] { return "ray: " + what() + ": " + quantity + " = " + amount(w / scale); };
+  if (w < 0 && lower)
     throw Failure{head() + " is negative, but the lower " + noun + " " + amount(*lower) +
                   " is finite, so the ray leaves the model"};
-  if (v > 0 && upper)
+  if (w > 0 && upper)
     throw Failure{head() + " is positive, but the upper " + noun + " " + amount(*upper) +
                   " is finite, so the ray leaves the model"};
 }
@@ -164,27 +160,30 @@ void require_identity(const Model& m, const Certificate& c) {
 Verdict verify_optimal(const Model& m, const Certificate& c, const detail::Objective& objective) {
   std::vector<Rational> x = dense(m, c.x, Kind::column, "x");
   std::vector<Rational> y = dense(m, c.y, Kind::row, "y");
-  require_feasible(m, x);
-  Rational bound = 0;  // weak duality: c'.x >= bound for every feasible x
+  CommonDenominator scaled_x = require_feasible(m, x);
+  CommonDenominator scaled_y = over_common_denominator(y);
+  const Integer& scale = scaled_y.denominator;
+  Rational bound = 0;  // weak duality: c'.x >= bound / scale for every feasible x
   for (int i = 0; i < m.row_count(); ++i) {
     const model::Row& row = m.rows[i];
-    require_sign(row_text(m, i), "multiplier y", y[i], row.lower, "lower side", row.upper, "upper side");
-    bound += pressed(y[i], row.lower, row.upper);
+    require_sign(row_text(m, i), "multiplier y", y[i], unscaled, row.lower, "lower side", row.upper, "upper side");
+    bound += pressed(scaled_y.numerators[i], row.lower, row.upper);
   }
-  std::vector<Rational> aty = transpose_times(m, y);
+  std::vector<Rational> aty = transpose_times(m, scaled_y.numerators);
   for (int j = 0; j < m.column_count(); ++j) {
     const model::Column& column = m.columns[j];
-    Rational d = min_cost(m, j) - aty[j];
-    require_sign(column_text(m, j), "reduced cost d = c' - A^T y", d, column.lower, "lower bound",
+    Rational d = min_cost(m, j) * scale - aty[j];
+    require_sign(column_text(m, j), "reduced cost d = c' - A^T y", d, scale, column.lower, "lower bound",
                  column.upper, "upper bound");
     bound += pressed(d, column.lower, column.upper);
   }
-  Rational cost = min_cost_dot(m, x);
+  bound /= scale;
+  Rational cost = min_cost_dot(m, scaled_x);
   if (bound != cost)
     throw Failure{"x is not proven optimal: the dual bound " + amount(objective.from_min_form(bound)) +
                   " differs from the objective at x, " + amount(objective.from_min_form(cost)) + ", by " +
                   amount(cost - bound)};
-  Rational value = objective.at(x);
+  Rational value = objective.from_min_form(cost);
   if (!c.objective) throw Failure{"objective: an optimal certificate must state it"};
   if (*c.objective != value)
     throw Failure{"objective: the certificate states " + amount(*c.objective) + ", but the objective at x is " +
@@ -196,19 +195,24 @@ Verdict verify_optimal(const Model& m, const Certificate& c, const detail::Objec
 
 Verdict verify_infeasible(const Model& m, const Certificate& c) {
   std::vector<Rational> y = dense(m, c.y, Kind::row, "y");
-  Rational rows_force = 0;  // every x meeting the rows has y.Ax >= rows_force
+  CommonDenominator scaled_y = over_common_denominator(y);
+  const Integer& scale = scaled_y.denominator;
+  Rational rows_force = 0;  // every x meeting the rows has y.Ax >= rows_force / scale
   for (int i = 0; i < m.row_count(); ++i) {
     const model::Row& row = m.rows[i];
-    require_sign(row_text(m, i), "Farkas multiplier y", y[i], row.lower, "lower side", row.upper, "upper side");
-    rows_force += pressed(y[i], row.lower, row.upper);
+    require_sign(row_text(m, i), "Farkas multiplier y", y[i], unscaled, row.lower, "lower side", row.upper,
+                 "upper side");
+    rows_force += pressed(scaled_y.numerators[i], row.lower, row.upper);
   }
-  std::vector<Rational> a = transpose_times(m, y);
-  Rational bounds_allow = 0;  // every x within its bounds has y.Ax = a.x <= bounds_allow
+  std::vector<Rational> a = transpose_times(m, scaled_y.numerators);
+  Rational bounds_allow = 0;  // every x within its bounds has y.Ax = a.x <= bounds_allow / scale
   for (int j = 0; j < m.column_count(); ++j) {
     const model::Column& column = m.columns[j];
-    require_sign(column_text(m, j), "(A^T y)", a[j], column.upper, "upper bound", column.lower, "lower bound");
+    require_sign(column_text(m, j), "(A^T y)", a[j], scale, column.upper, "upper bound", column.lower, "lower bound");
     bounds_allow += pressed(a[j], column.upper, column.lower);
   }
+  rows_force /= scale;
+  bounds_allow /= scale;
   if (rows_force <= bounds_allow)
     throw Failure{"no contradiction: the rows weighted by y force y.Ax >= " + amount(rows_force) +
                   ", but the bounds let y.Ax reach " + amount(bounds_allow) +
@@ -222,11 +226,12 @@ Verdict verify_unbounded(const Model& m, const Certificate& c, const detail::Obj
   std::vector<Rational> r = dense(m, c.ray, Kind::column, "ray");
   require_feasible(m, x);
   for (int j = 0; j < m.column_count(); ++j)
-    require_unlimited(column_text(m, j), "r", r[j], m.columns[j].lower, m.columns[j].upper, "bound");
-  std::vector<Rational> ar = times(m, r);
+    require_unlimited(column_text(m, j), "r", r[j], unscaled, m.columns[j].lower, m.columns[j].upper, "bound");
+  CommonDenominator scaled_r = over_common_denominator(r);
+  std::vector<Rational> ar = times(m, scaled_r.numerators);
   for (int i = 0; i < m.row_count(); ++i)
-    require_unlimited(row_text(m, i), "(A r)", ar[i], m.rows[i].lower, m.rows[i].upper, "side");
-  Rational slope = min_cost_dot(m, r);
+    require_unlimited(row_text(m, i), "(A r)", ar[i], scaled_r.denominator, m.rows[i].lower, m.rows[i].upper, "side");
+  Rational slope = min_cost_dot(m, scaled_r);
   if (slope >= 0)
     throw Failure{"ray: the objective does not improve along the ray: c.r = " + amount(objective.direction(slope)) +
                   (m.objective.sense == model::Sense::maximise ? ", and maximising needs it positive"
@@ -237,8 +242,9 @@ Verdict verify_unbounded(const Model& m, const Certificate& c, const detail::Obj
 
 Verdict verify_feasible(const Model& m, const Certificate& c, const detail::Objective& objective) {
   std::vector<Rational> x = dense(m, c.x, Kind::column, "x");
-  require_feasible(m, x);
-  return {true, "feasible: x meets every row and bound, with objective " + amount(objective.at(x)) +
+  CommonDenominator scaled_x = require_feasible(m, x);
+  return {true, "feasible: x meets every row and bound, with objective " +
+                    amount(objective.from_min_form(min_cost_dot(m, scaled_x))) +
                     in_parentheses(objective.constant_note()), ""};
 }
 

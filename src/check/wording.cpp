@@ -25,10 +25,6 @@ std::string column_text(const model::Model& m, int j) {
 Objective::Objective(const model::Model& m, const std::optional<Rational>& certificate_constant)
     : model_(m), constant_(certificate_constant.value_or(m.objective.constant)) {}
 
-Rational Objective::at(const std::vector<Rational>& x) const {
-  return model_.objective_value(x) - model_.objective.constant + constant_;
-}
-
 Rational Objective::from_min_form(const Rational& cost) const { return direction(cost) + constant_; }
 
 Rational Objective::direction(const Rational& slope) const {

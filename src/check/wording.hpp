@@ -33,7 +33,6 @@ std::string column_text(const model::Model& m, int j);
 class Objective {
  public:
   Objective(const model::Model& m, const std::optional<Rational>& certificate_constant);
-  Rational at(const std::vector<Rational>& x) const;        // c.x + constant
   Rational from_min_form(const Rational& cost) const;       // c'.x back to the model's terms
   Rational direction(const Rational& slope) const;          // c'.r back to the model's c.r
   // "the objective includes the certificate's constant K, the model as read has M", or "" when equal.

@@ -95,10 +95,11 @@ std::optional<int> Model::find_column(std::string_view name) const {
 }
 
 Rational Model::objective_value(const std::vector<Rational>& x) const {
-  Rational value = objective.constant;
+  numeric::CommonDenominator scaled = numeric::over_common_denominator(x);
+  Rational sum = 0;
   for (int j = 0; j < column_count(); ++j)
-    if (objective.coefficients[j] != 0 && x[j] != 0) value += objective.coefficients[j] * x[j];
-  return value;
+    if (objective.coefficients[j] != 0 && scaled.numerators[j] != 0) sum += objective.coefficients[j] * scaled.numerators[j];
+  return sum / scaled.denominator + objective.constant;
 }
 
 bool Model::same_content(const Model& other) const {

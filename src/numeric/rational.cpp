@@ -181,6 +181,17 @@ std::string exact_and_decimal(const Rational& value) {
   return exact + " (" + (decimal.rounded ? "~" : "") + decimal.text + ")";
 }
 
+CommonDenominator over_common_denominator(const std::vector<Rational>& v) {
+  CommonDenominator result;
+  result.denominator = 1;
+  for (const Rational& q : v)  // divisibility first: it is cheaper than the lcm it usually makes unnecessary
+    if (result.denominator % denominator(q) != 0) result.denominator = lcm(result.denominator, denominator(q));
+  result.numerators.resize(v.size());
+  for (std::size_t k = 0; k < v.size(); ++k)
+    result.numerators[k] = numerator(v[k]) * (result.denominator / denominator(v[k]));
+  return result;
+}
+
 double to_double(const Rational& value) {
   // Numerator and denominator below 2^53 are exact doubles, and IEEE division rounds their
   // quotient correctly; that covers nearly every number read from a file, at a fraction of the

@@ -6,6 +6,7 @@
 #include <optional>
 #include <string>
 #include <string_view>
+#include <vector>
 
 namespace plumb::numeric {
 
@@ -49,6 +50,17 @@ std::string to_display(const Rational& value, int significant = 12);
 // readable_fraction_length characters) is shown as its rounded decimal alone: "~5501.84588831".
 constexpr std::size_t readable_fraction_length = 24;
 std::string exact_and_decimal(const Rational& value);
+
+// v as N / L: integer numerators N_k = v_k L over the least common denominator L > 0.  A sum of
+// products with v then adds fractions with the other factors' (short) denominators, and one
+// division by L at the end is its only gcd of long numbers: at bases with long determinants a
+// solution holds thousands of fractions of thousands of digits, all dividing one denominator, and
+// adding them directly costs a gcd of long numbers per term.
+struct CommonDenominator {
+  std::vector<Rational> numerators;  // integers, held as rationals to mix with other fractions
+  Integer denominator;
+};
+CommonDenominator over_common_denominator(const std::vector<Rational>& v);
 
 // A double within one ulp (rounded to nearest when numerator and denominator are below 2^53, else
 // truncated by GMP), for floating-point search and filters only: never for a decision on its own.
