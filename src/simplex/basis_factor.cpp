@@ -384,27 +384,24 @@ bool BasisFactor::reach(SparseVector& x, Neighbours&& neighbours) const {
 }
 
 // x[i] -= value * x[r] for the (i, value) pairs of lists[r], each r after every r' whose list
-// holds r: through the reached nodes in topological order, or through all of dense_order.
+// holds r: through the reached nodes in topological order, or through all of dense_order.  The
+// dense way lists the nonzeros by one scan at the end, cheaper than marking each entry as it
+// fills in (at least sparse_density * m entries are listed already when it is taken).
 void BasisFactor::eliminate(SparseVector& x, const SparseVectors& lists, const std::vector<int>& dense_order) const {
-  auto apply = [&](int r, auto&& on_entry) {
+  const int* index = lists.index.data();
+  const double* value = lists.value.data();
+  auto apply = [&](int r) {
     const double v = x.values[r];
     if (v == 0) return;
-    for (int p = lists.start[r]; p < lists.start[r + 1]; ++p) {
-      x.values[lists.index[p]] -= lists.value[p] * v;
-      on_entry(lists.index[p]);
-    }
+    for (int p = lists.start[r], end = lists.start[r + 1]; p < end; ++p) x.values[index[p]] -= value[p] * v;
   };
-  auto edges = [&](int r) { return std::pair{lists.index.data() + lists.start[r], lists.start[r + 1] - lists.start[r]}; };
+  auto edges = [&](int r) { return std::pair{index + lists.start[r], lists.start[r + 1] - lists.start[r]}; };
   if (sparse_enough(x) && reach(x, edges)) {
-    for (int r : x.index) apply(r, [](int) {});
+    for (int r : x.index) apply(r);
     return;
   }
-  for (int i : x.index) visited_[i] = 1;
-  for (int r : dense_order)
-    apply(r, [&](int i) {
-      if (!visited_[i]) visited_[i] = 1, x.index.push_back(i);
-    });
-  for (int i : x.index) visited_[i] = 0;
+  for (int r : dense_order) apply(r);
+  x.rebuild_index();
 }
 
 void BasisFactor::solve_l(SparseVector& x) const { eliminate(x, l_columns_, l_order_); }
