@@ -319,7 +319,9 @@ TEST(ExactSolve, HybridFallsBackWhenTheFloatSearchFails) {
   const Solution& s = result.solution;
   ASSERT_EQ(s.outcome, Outcome::optimal);
   EXPECT_EQ(s.objective, 13);
-  if (s.stats.fell_back) EXPECT_FALSE(s.stats.float_note.empty());
+  if (s.stats.fell_back) {
+    EXPECT_FALSE(s.stats.float_note.empty());
+  }
 }
 
 TEST(ExactSolve, StopsAtTheBudget) {

@@ -274,8 +274,11 @@ TEST(NativeFormatErrors, InlineMistakes) {
       {"variable x\nvariable y\nconstraint c: x <= y\nconstraint d: 3 <= 1\n", 0, 0, ""},  // fine
   };
   for (const BadInput& c : cases) {
-    if (c.line == 0) EXPECT_NO_THROW(parse(c.input)) << c.input;
-    else expect_error_at(error_of(c.input), "test.plumb", c);
+    if (c.line == 0) {
+      EXPECT_NO_THROW(parse(c.input)) << c.input;
+    } else {
+      expect_error_at(error_of(c.input), "test.plumb", c);
+    }
   }
 }
 

@@ -95,7 +95,9 @@ void expect_index_exact(const SparseVector& v, const std::string& context) {
   for (int i : v.index) ++listed[i];
   for (std::size_t i = 0; i < v.values.size(); ++i) {
     EXPECT_LE(listed[i], 1) << context << " entry " << i << " listed twice";
-    if (v.values[i] != 0) EXPECT_EQ(listed[i], 1) << context << " entry " << i << " not listed";
+    if (v.values[i] != 0) {
+      EXPECT_EQ(listed[i], 1) << context << " entry " << i << " not listed";
+    }
   }
 }
 
