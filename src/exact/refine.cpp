@@ -95,7 +95,7 @@ bool RefinedSolver::factorize(int m, const std::vector<SparseColumn>& columns) {
   m_ = m;
   usable_ = false;
   seed_ = 0;
-  simplex::detail::SparseVectors values;
+  simplex::FloatColumns values;
   for (int j = 0; j < m; ++j) {
     for (std::size_t e = 0; e < columns[j].rows.size(); ++e) {
       double v = numeric::to_double(columns[j].values[e]);
@@ -106,8 +106,8 @@ bool RefinedSolver::factorize(int m, const std::vector<SparseColumn>& columns) {
   }
   // Tiny pivots are acceptable here: a poor factor only slows the refinement, which then gives
   // up, and the exact check stands behind every answer.
-  lu_.absolute_tolerance = 1e-14;
-  if (!lu_.factorize(m, values).empty()) return false;
+  constexpr double pivot_floor = 1e-14;
+  if (!lu_.factorize(m, std::move(values), pivot_floor)) return false;
   primal_ = scaled(m, columns, false);
   dual_ = scaled(m, columns, true);
   usable_ = true;
@@ -137,8 +137,8 @@ void RefinedSolver::float_solve(const IntegerMatrix& matrix, bool transposed, lo
   }
   for (int i = 0; i < m_; ++i)
     if (work_[i] != 0) work_[i] = std::ldexp(work_[i], static_cast<int>(std::max(exponents[i] - shift, -2000L)));
-  if (transposed) lu_.btran(work_);
-  else lu_.ftran(work_);
+  if (transposed) lu_.solve_transposed(work_);
+  else lu_.solve(work_);
 }
 
 // target -= M z.

@@ -3,7 +3,7 @@
 #pragma once
 
 #include "factor.hpp"
-#include "simplex/basis_factor.hpp"
+#include "plumb/simplex/float_lu.hpp"
 
 #include <optional>
 #include <vector>
@@ -89,7 +89,7 @@ class RefinedSolver {
   RefineStats stats_;
   int m_ = 0;
   bool usable_ = false;
-  simplex::detail::BasisFactor lu_;
+  simplex::FloatLu lu_;
   IntegerMatrix primal_, dual_;
   // Working storage reused across steps: rhs scaled to integers, N, r, corrections, checks.
   std::vector<Integer> rhs_, numerator_, residual_, correction_, check_, candidate_;
