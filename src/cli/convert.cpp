@@ -2,6 +2,7 @@
 #include "command.hpp"
 
 #include "plumb/model/labels.hpp"
+#include "plumb/model/write.hpp"
 
 #include <fstream>
 #include <iostream>
@@ -22,12 +23,12 @@ bool ends_with(const std::string& text, const std::string& suffix) {
 
 model::Format output_format(const ConvertOptions& options) {
   if (options.to == "mps") return model::Format::mps;
-  if (options.to == "plumb") return model::Format::plumb;
+  if (options.to == "plumb") return model::Format::native;
   if (ends_with(options.output, ".gz"))
     throw model::InputError({options.output}, "an output ending in .gz",
                             "an uncompressed output (.mps or .plumb); compress it afterwards");
   if (ends_with(options.output, ".mps")) return model::Format::mps;
-  if (ends_with(options.output, ".plumb")) return model::Format::plumb;
+  if (ends_with(options.output, ".plumb")) return model::Format::native;
   throw model::InputError({options.output}, options.output == "-" ? "output '-' without --to" : "an output without .mps or .plumb",
                           "--to mps or --to plumb, or an output file ending in .mps or .plumb");
 }
@@ -62,13 +63,13 @@ int convert(const ConvertOptions& options) {
   model::Model input = load_model(options.model);
   std::ostringstream text;
   if (format == model::Format::mps) model::write_mps(input, text);
-  else model::write_plumb(input, text);
+  else model::write_native(input, text);
 
   // The writers promise a lossless round trip; hold them to it before anything is written.
   model::ReadOptions read;
   read.format = format;
   model::Model back = model::read_model_text(text.str(), options.output, read);
-  bool same = format == model::Format::plumb ? back.same_content(input)
+  bool same = format == model::Format::native ? back.same_content(input)
                                               : without_labels(back).same_content(without_labels(input));
   if (!same) {
     std::cerr << "plumb: the written model does not read back the same; nothing was written (a fault in plumb: "

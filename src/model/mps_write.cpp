@@ -1,5 +1,5 @@
 // MPS writer, free form: every number exact, and the reader gets the same model back (docs/mps.md).
-#include "plumb/model/read.hpp"
+#include "plumb/model/write.hpp"
 
 #include <algorithm>
 #include <ostream>

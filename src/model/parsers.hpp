@@ -12,9 +12,9 @@ namespace plumb::model::detail {
 Model parse_mps(std::string_view text, const std::string& file, ObjectiveConstantRule rule);
 
 // The native format of docs/model-format.md.
-Model parse_plumb(std::string_view text, const std::string& file);
+Model parse_native(std::string_view text, const std::string& file);
 
 // True when the first significant line of text opens with a native-format keyword.
-bool looks_like_plumb(std::string_view text);
+bool looks_like_native(std::string_view text);
 
 }  // namespace plumb::model::detail

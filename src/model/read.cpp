@@ -13,16 +13,16 @@ bool ends_with(std::string_view text, std::string_view suffix) {
 
 Format resolve_format(const std::string& path, std::string_view text, Format requested) {
   if (requested != Format::automatic) return requested;
-  if (ends_with(path, ".plumb") || ends_with(path, ".plumb.gz")) return Format::plumb;
+  if (ends_with(path, ".plumb") || ends_with(path, ".plumb.gz")) return Format::native;
   if (ends_with(path, ".mps") || ends_with(path, ".mps.gz")) return Format::mps;
-  return detail::looks_like_plumb(text) ? Format::plumb : Format::mps;
+  return detail::looks_like_native(text) ? Format::native : Format::mps;
 }
 
 }  // namespace
 
 Model read_model_text(std::string_view text, const std::string& file, const ReadOptions& options) {
-  Model model = resolve_format(file, text, options.format) == Format::plumb
-                    ? detail::parse_plumb(text, file)
+  Model model = resolve_format(file, text, options.format) == Format::native
+                    ? detail::parse_native(text, file)
                     : detail::parse_mps(text, file, options.constant_rule);
   model.source.path = file;
   model.source.constant_rule = options.constant_rule;

@@ -5,6 +5,7 @@
 #include "plumb/check/check.hpp"
 #include "plumb/model/labels.hpp"
 #include "plumb/model/read.hpp"
+#include "plumb/model/write.hpp"
 #include "plumb/numeric/rational.hpp"
 
 #include <zlib.h>
@@ -205,12 +206,14 @@ void fuzz_mps_file(std::string_view input) {
 }
 
 void fuzz_native(std::string_view input) {
-  Outcome read = attempt([&] { return model::read_model_text(input, "fuzz.plumb", options_for(Format::plumb)); });
+  Outcome read =
+      attempt([&] { return model::read_model_text(input, "fuzz.plumb", options_for(Format::native)); });
   if (!read.model) return;
   check_model_shape(*read.model);
   std::ostringstream written;
-  model::write_plumb(*read.model, written);
-  Outcome again = attempt([&] { return model::read_model_text(written.str(), "rewritten.plumb", options_for(Format::plumb)); });
+  model::write_native(*read.model, written);
+  Outcome again = attempt(
+      [&] { return model::read_model_text(written.str(), "rewritten.plumb", options_for(Format::native)); });
   require(again.model.has_value(), "written native text does not read back: " + again.error);
   require(again.model->same_content(*read.model), "native text does not round-trip");
 }

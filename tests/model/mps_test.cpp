@@ -1,6 +1,7 @@
 // The MPS reader and writer on small invented models, one convention at a time.
 #include "expect_input_error.hpp"
 #include "plumb/model/read.hpp"
+#include "plumb/model/write.hpp"
 
 #include <gtest/gtest.h>
 

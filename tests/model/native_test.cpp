@@ -3,6 +3,7 @@
 #include "model/parsers.hpp"
 #include "plumb/model/labels.hpp"
 #include "plumb/model/read.hpp"
+#include "plumb/model/write.hpp"
 
 #include <gtest/gtest.h>
 
@@ -20,11 +21,11 @@ using plumb::model::Side;
 using plumb::test::BadInput;
 using plumb::test::expect_error_at;
 
-Model parse(const std::string& text) { return plumb::model::detail::parse_plumb(text, "test.plumb"); }
+Model parse(const std::string& text) { return plumb::model::detail::parse_native(text, "test.plumb"); }
 
 std::string written(const Model& model) {
   std::ostringstream out;
-  plumb::model::write_plumb(model, out);
+  plumb::model::write_native(model, out);
   return out.str();
 }
 
@@ -220,14 +221,14 @@ TEST(NativeFormat, WarnsWhenLimitsCannotHold) {
 }
 
 TEST(NativeFormat, RecognisedByContent) {
-  using plumb::model::detail::looks_like_plumb;
-  EXPECT_TRUE(looks_like_plumb("# comment\n\nvariable x\n"));
-  EXPECT_TRUE(looks_like_plumb("title \"t\"\n"));
-  EXPECT_FALSE(looks_like_plumb("NAME  TEST\nROWS\n N  COST\n"));
-  EXPECT_FALSE(looks_like_plumb("* comment\nNAME\n"));
-  EXPECT_FALSE(looks_like_plumb("  variable x\n"));
-  EXPECT_FALSE(looks_like_plumb(""));
-  EXPECT_FALSE(looks_like_plumb("variables x\n"));
+  using plumb::model::detail::looks_like_native;
+  EXPECT_TRUE(looks_like_native("# comment\n\nvariable x\n"));
+  EXPECT_TRUE(looks_like_native("title \"t\"\n"));
+  EXPECT_FALSE(looks_like_native("NAME  TEST\nROWS\n N  COST\n"));
+  EXPECT_FALSE(looks_like_native("* comment\nNAME\n"));
+  EXPECT_FALSE(looks_like_native("  variable x\n"));
+  EXPECT_FALSE(looks_like_native(""));
+  EXPECT_FALSE(looks_like_native("variables x\n"));
 }
 
 // Each malformed input: one error at the right place, naming what was found and expected.

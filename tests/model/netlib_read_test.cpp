@@ -1,5 +1,6 @@
 // Reading every Netlib instance: sizes against the published table (../shared/netlib/published.csv).
 #include "plumb/model/read.hpp"
+#include "plumb/model/write.hpp"
 #include "shared_data.hpp"
 
 #include <gtest/gtest.h>

@@ -1,14 +1,15 @@
-// Reading and writing models: the one entry point that every command uses to load a file.
+// Reading models: the one entry point that every command uses to load a file (writing:
+// plumb/model/write.hpp).
 #pragma once
 
 #include "plumb/model/model.hpp"
 
-#include <iosfwd>
 #include <string>
+#include <string_view>
 
 namespace plumb::model {
 
-enum class Format { automatic, mps, plumb };
+enum class Format { automatic, mps, native };  // native: the format of docs/model-format.md, files .plumb
 
 struct ReadOptions {
   Format format = Format::automatic;  // automatic: by extension (.plumb), else by content
@@ -22,9 +23,5 @@ Model read_model(const std::string& path, const ReadOptions& options = {});
 
 // Parses model text already in memory; `file` names it in messages.
 Model read_model_text(std::string_view text, const std::string& file, const ReadOptions& options = {});
-
-// Writers: free-form MPS and the native format.  Both round-trip through the readers.
-void write_mps(const Model& model, std::ostream& out);
-void write_plumb(const Model& model, std::ostream& out);
 
 }  // namespace plumb::model

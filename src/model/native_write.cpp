@@ -1,6 +1,6 @@
-// Native model format writer: output that parse_plumb reads back to the same model.
+// Native model format writer: output that parse_native reads back to the same model.
 #include "native_lexer.hpp"
-#include "plumb/model/read.hpp"
+#include "plumb/model/write.hpp"
 
 #include <algorithm>
 #include <ostream>
@@ -14,10 +14,14 @@ constexpr std::size_t line_width = 100;  // long statements wrap onto indented c
 std::string escaped(std::string_view text, char close) {
   std::string out;
   for (char c : text) {
-    if (c == '\\' || c == close) out += '\\', out += c;
-    else if (c == '\n') out += "\\n";
-    else if (c == '\t') out += "\\t";
-    else out += c;
+    if (c == '\\' || c == close)
+      out += '\\', out += c;
+    else if (c == '\n')
+      out += "\\n";
+    else if (c == '\t')
+      out += "\\t";
+    else
+      out += c;
   }
   return out;
 }
@@ -85,8 +89,9 @@ void add_label(std::vector<std::string>& pieces, const Label& label) {
   if (!label.unit.empty()) pieces.push_back("[" + escaped(label.unit, ']') + "]");
   if (!label.statement.empty()) pieces.push_back("\"" + escaped(label.statement, '"') + "\"");
   if (!label.group.empty())
-    pieces.push_back("group " +
-                     (detail::is_plain_name(label.group) ? label.group : "\"" + escaped(label.group, '"') + "\""));
+    pieces.push_back("group " + (detail::is_plain_name(label.group)
+                                     ? label.group
+                                     : "\"" + escaped(label.group, '"') + "\""));
   if (label.hard) pieces.push_back(*label.hard ? "hard" : "soft");
 }
 
@@ -110,7 +115,9 @@ void write_variable(std::ostream& out, const Column& column) {
   // Sides with a label of their own go into 'bound' statements below; the rest stay on this line.
   bool inline_lower = column.lower_label.empty();
   bool inline_upper = column.upper_label.empty();
-  auto side_text = [](const Side& side, const char* infinity) { return side ? number_text(*side) : infinity; };
+  auto side_text = [](const Side& side, const char* infinity) {
+    return side ? number_text(*side) : infinity;
+  };
   if (inline_lower && inline_upper && !column.lower && !column.upper) {
     pieces.push_back("free");
   } else if (inline_lower && inline_upper && column.lower && column.upper && *column.lower == *column.upper) {
@@ -128,12 +135,14 @@ void write_variable(std::ostream& out, const Column& column) {
   add_label(pieces, rest);
   write_statement(out, pieces);
   if (!inline_lower) {
-    std::vector<std::string> bound{"bound", name_text(column.name), "at least " + side_text(column.lower, "-infinity")};
+    std::vector<std::string> bound{"bound", name_text(column.name),
+                                   "at least " + side_text(column.lower, "-infinity")};
     add_label(bound, column.lower_label);
     write_statement(out, bound);
   }
   if (!inline_upper) {
-    std::vector<std::string> bound{"bound", name_text(column.name), "at most " + side_text(column.upper, "infinity")};
+    std::vector<std::string> bound{"bound", name_text(column.name),
+                                   "at most " + side_text(column.upper, "infinity")};
     add_label(bound, column.upper_label);
     write_statement(out, bound);
   }
@@ -148,7 +157,8 @@ void write_objective(std::ostream& out, const Model& model) {
   std::vector<int> columns(static_cast<std::size_t>(model.column_count()));
   for (int j = 0; j < model.column_count(); ++j) columns[static_cast<std::size_t>(j)] = j;
   std::vector<std::string> body;
-  add_terms(body, model, columns, [&](std::size_t k) -> const Rational& { return objective.coefficients[k]; });
+  add_terms(body, model, columns,
+            [&](std::size_t k) -> const Rational& { return objective.coefficients[k]; });
   if (objective.constant != 0) {
     if (body.back() == "0") body.pop_back();
     body.push_back((objective.constant < 0 ? (body.empty() ? "-" : "- ") : (body.empty() ? "" : "+ ")) +
@@ -168,17 +178,22 @@ void write_constraint(std::ostream& out, const Model& model, int i) {
   auto positions = model.matrix.row_positions(i);
   add_terms(body, model, model.matrix.row_columns(i),
             [&](std::size_t k) -> const Rational& { return model.matrix.value(positions[k]); });
-  if (two_sided) body.push_back("<= " + number_text(*row.upper));
-  else if (row.lower && row.upper) body.push_back("= " + number_text(*row.upper));
-  else if (row.upper) body.push_back("<= " + number_text(*row.upper));
-  else if (row.lower) body.push_back(">= " + number_text(*row.lower));
-  else body.push_back("<= infinity");
+  if (two_sided)
+    body.push_back("<= " + number_text(*row.upper));
+  else if (row.lower && row.upper)
+    body.push_back("= " + number_text(*row.upper));
+  else if (row.upper)
+    body.push_back("<= " + number_text(*row.upper));
+  else if (row.lower)
+    body.push_back(">= " + number_text(*row.lower));
+  else
+    body.push_back("<= infinity");
   write_statement(out, pieces, body);
 }
 
 }  // namespace
 
-void write_plumb(const Model& model, std::ostream& out) {
+void write_native(const Model& model, std::ostream& out) {
   if (!model.title.empty()) out << "title \"" << escaped(model.title, '"') << "\"\n\n";
   for (const Column& column : model.columns) write_variable(out, column);
   out << "\n";

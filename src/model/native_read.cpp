@@ -14,13 +14,20 @@ std::string shorten(const std::string& text) { return text.size() > 40 ? text.su
 
 std::string describe(const Token& token) {
   switch (token.kind) {
-    case TokenKind::word: return "'" + shorten(token.text) + "'";
-    case TokenKind::quoted_name: return "the quoted name '" + shorten(token.text) + "'";
-    case TokenKind::text: return "the quoted text \"" + shorten(token.text) + "\"";
-    case TokenKind::unit: return "the unit [" + shorten(token.text) + "]";
-    case TokenKind::number: return "the number " + token.text;
-    case TokenKind::symbol: return "'" + token.text + "'";
-    case TokenKind::end: break;
+    case TokenKind::word:
+      return "'" + shorten(token.text) + "'";
+    case TokenKind::quoted_name:
+      return "the quoted name '" + shorten(token.text) + "'";
+    case TokenKind::text:
+      return "the quoted text \"" + shorten(token.text) + "\"";
+    case TokenKind::unit:
+      return "the unit [" + shorten(token.text) + "]";
+    case TokenKind::number:
+      return "the number " + token.text;
+    case TokenKind::symbol:
+      return "'" + token.text + "'";
+    case TokenKind::end:
+      break;
   }
   return "the end of the statement";
 }
@@ -69,8 +76,9 @@ class Reader {
       if (line_tokens.empty()) continue;
       bool continues = line.front() == ' ' || line.front() == '\t';
       if (continues && tokens_.empty())
-        throw InputError(line_tokens.front().where, "an indented line with no statement before it",
-                         "a statement keyword at the start of the line (indented lines continue the one above)");
+        throw InputError(
+            line_tokens.front().where, "an indented line with no statement before it",
+            "a statement keyword at the start of the line (indented lines continue the one above)");
       if (!continues) finish_statement();
       tokens_.insert(tokens_.end(), std::make_move_iterator(line_tokens.begin()),
                      std::make_move_iterator(line_tokens.end()));
@@ -94,18 +102,23 @@ class Reader {
     const Token& keyword = take();
     if (keyword.kind != TokenKind::word || !is_statement_keyword(keyword.text))
       fail(keyword, "a statement keyword: title, variable, bound, minimise, maximise or constraint");
-    if (keyword.text == "title") title_statement(keyword);
-    else if (keyword.text == "variable") variable_statement();
-    else if (keyword.text == "bound") bound_statement();
-    else if (keyword.text == "constraint") constraint_statement();
-    else objective_statement(keyword);
+    if (keyword.text == "title")
+      title_statement(keyword);
+    else if (keyword.text == "variable")
+      variable_statement();
+    else if (keyword.text == "bound")
+      bound_statement();
+    else if (keyword.text == "constraint")
+      constraint_statement();
+    else
+      objective_statement(keyword);
     tokens_.clear();
   }
 
   void title_statement(const Token& keyword) {
     if (title_line_ != 0)
-      throw InputError(keyword.where, "a second title", "one title per model (the first is on line " +
-                                                            std::to_string(title_line_) + ")");
+      throw InputError(keyword.where, "a second title",
+                       "one title per model (the first is on line " + std::to_string(title_line_) + ")");
     title_line_ = keyword.where.line;
     const Token& text = take();
     if (text.kind != TokenKind::text) fail(text, "the title in double quotes");
@@ -138,8 +151,9 @@ class Reader {
         take();
         continue;
       }
-      fail(peek(), "a bound (between, at least, at most, free, fixed at), 'integer', a \"statement\", a [unit], "
-                   "'group', 'hard', 'soft' or the end of the variable");
+      fail(peek(),
+           "a bound (between, at least, at most, free, fixed at), 'integer', a \"statement\", a [unit], "
+           "'group', 'hard', 'soft' or the end of the variable");
     }
   }
 
@@ -157,15 +171,17 @@ class Reader {
 
   void objective_statement(const Token& keyword) {
     if (objective_line_ != 0)
-      throw InputError(keyword.where, "a second objective",
-                       "one objective per model (the first is on line " + std::to_string(objective_line_) + ")");
+      throw InputError(
+          keyword.where, "a second objective",
+          "one objective per model (the first is on line " + std::to_string(objective_line_) + ")");
     objective_line_ = keyword.where.line;
     model_.objective.sense = keyword.text.starts_with("min") ? Sense::minimise : Sense::maximise;
     if (at_name()) model_.objective.name = take_name("an objective name");
     LabelParts parts;
     while (label_clause(model_.objective.label, parts)) {
     }
-    expect_symbol(":", "':' before the objective's expression, or a \"statement\", [unit], 'group', 'hard', 'soft'");
+    expect_symbol(
+        ":", "':' before the objective's expression, or a \"statement\", [unit], 'group', 'hard', 'soft'");
     LinearForm form = side();
     if (form.infinity != 0) throw InputError(form.where, "an infinite objective", "an expression");
     expect_end("'+', '-' or the end of the objective (an objective has no relation)");
@@ -181,7 +197,8 @@ class Reader {
     LabelParts parts;
     while (label_clause(row.label, parts)) {
     }
-    expect_symbol(":", "':' before the constraint's relation, or a \"statement\", [unit], 'group', 'hard', 'soft'");
+    expect_symbol(
+        ":", "':' before the constraint's relation, or a \"statement\", [unit], 'group', 'hard', 'soft'");
     std::vector<LinearForm> sides;
     std::vector<Token> relations;
     sides.push_back(side());
@@ -198,8 +215,9 @@ class Reader {
                                                      : combine_two_sided(sides, relations, row);
     for (const auto& [j, value] : middle.terms) entries_.push_back({i, j, value});
     if (row.lower && row.upper && *row.lower > *row.upper)
-      model_.warnings.push_back({name_token.where, "constraint '" + shorten(row.name) +
-                                                       "' has its lower limit above its upper limit: it cannot hold"});
+      model_.warnings.push_back(
+          {name_token.where, "constraint '" + shorten(row.name) +
+                                 "' has its lower limit above its upper limit: it cannot hold"});
     row_by_name_.emplace(name, i);
     row_declared_at_.push_back(name_token.where.line);
     model_.rows.push_back(std::move(row));
@@ -217,8 +235,9 @@ class Reader {
       const LinearForm& infinite = left.infinity != 0 ? left : right;
       int allowed = (left.infinity != 0) == less ? -1 : +1;
       if (relation.text == "=" || infinite.infinity != allowed)
-        throw InputError(infinite.where, std::string(infinite.infinity > 0 ? "'infinity'" : "'-infinity'") + " " +
-                                             (relation.text == "=" ? "in an equation" : "on the wrong side"),
+        throw InputError(infinite.where,
+                         std::string(infinite.infinity > 0 ? "'infinity'" : "'-infinity'") + " " +
+                             (relation.text == "=" ? "in an equation" : "on the wrong side"),
                          "a finite number, or infinity where it leaves the constraint without that limit");
       return left.infinity != 0 ? right : left;
     }
@@ -230,9 +249,11 @@ class Reader {
   }
 
   // L <= expression <= U, or U >= expression >= L; the outer parts are numbers or infinities.
-  const LinearForm& combine_two_sided(std::vector<LinearForm>& sides, const std::vector<Token>& relations, Row& row) {
+  const LinearForm& combine_two_sided(std::vector<LinearForm>& sides, const std::vector<Token>& relations,
+                                      Row& row) {
     if (relations[0].text != relations[1].text || relations[0].text == "=")
-      throw InputError(relations[1].where, "'" + relations[0].text + "' followed by '" + relations[1].text + "'",
+      throw InputError(relations[1].where,
+                       "'" + relations[0].text + "' followed by '" + relations[1].text + "'",
                        "two '<=' or two '>=' in a two-sided constraint");
     for (std::size_t k : {std::size_t(0), std::size_t(2)})
       if (!sides[k].terms.empty())
@@ -244,7 +265,8 @@ class Reader {
     const LinearForm& low = less ? sides[0] : sides[2];
     const LinearForm& high = less ? sides[2] : sides[0];
     if (low.infinity > 0) throw InputError(low.where, "'infinity' as a lower limit", "a number or -infinity");
-    if (high.infinity < 0) throw InputError(high.where, "'-infinity' as an upper limit", "a number or infinity");
+    if (high.infinity < 0)
+      throw InputError(high.where, "'-infinity' as an upper limit", "a number or infinity");
     if (low.infinity == 0) row.lower = low.constant - middle.constant;
     if (high.infinity == 0) row.upper = high.constant - middle.constant;
     return middle;
@@ -256,7 +278,8 @@ class Reader {
   bool label_clause(Label& label, LabelParts& parts) {
     const Token& token = peek();
     auto once = [&](bool& seen, const char* what) {
-      if (seen) throw InputError(token.where, std::string("a second ") + what, std::string("one ") + what + " here");
+      if (seen)
+        throw InputError(token.where, std::string("a second ") + what, std::string("one ") + what + " here");
       seen = true;
     };
     if (token.kind == TokenKind::text) {
@@ -269,8 +292,10 @@ class Reader {
       once(parts.group, "group");
       take();
       const Token& group = peek();
-      if (group.kind == TokenKind::text || group.kind == TokenKind::quoted_name) label.group = take().text;
-      else label.group = take_name("a group name after 'group'");
+      if (group.kind == TokenKind::text || group.kind == TokenKind::quoted_name)
+        label.group = take().text;
+      else
+        label.group = take_name("a group name after 'group'");
     } else if (at_word("hard") || at_word("soft")) {
       once(parts.hard, "'hard' or 'soft'");
       label.hard = take().text == "hard";
@@ -335,11 +360,13 @@ class Reader {
   }
 
   Side lower_side(const BoundValue& bound) {
-    if (bound.infinity > 0) throw InputError(bound.where, "'infinity' as a lower bound", "a number or -infinity");
+    if (bound.infinity > 0)
+      throw InputError(bound.where, "'infinity' as a lower bound", "a number or -infinity");
     return bound.infinity < 0 ? Side{} : Side{bound.value};
   }
   Side upper_side(const BoundValue& bound) {
-    if (bound.infinity < 0) throw InputError(bound.where, "'-infinity' as an upper bound", "a number or infinity");
+    if (bound.infinity < 0)
+      throw InputError(bound.where, "'-infinity' as an upper bound", "a number or infinity");
     return bound.infinity > 0 ? Side{} : Side{bound.value};
   }
 
@@ -348,9 +375,11 @@ class Reader {
     Column& column = model_.columns[j];
     auto claim = [&](long& set_at, const char* side) {
       if (set_at != 0)
-        throw InputError(clause.where, std::string("a second ") + side + " bound for variable '" + shorten(column.name) + "'",
-                         std::string("one ") + side + " bound per variable (the first is on line " +
-                             std::to_string(set_at) + ")");
+        throw InputError(
+            clause.where,
+            std::string("a second ") + side + " bound for variable '" + shorten(column.name) + "'",
+            std::string("one ") + side + " bound per variable (the first is on line " +
+                std::to_string(set_at) + ")");
       set_at = clause.where.line;
     };
     if (clause.sets_lower) {
@@ -364,8 +393,9 @@ class Reader {
       if (label) column.upper_label = *label;
     }
     if (column.lower && column.upper && *column.lower > *column.upper)
-      model_.warnings.push_back({clause.where, "variable '" + shorten(column.name) +
-                                                   "' has its lower bound above its upper bound: the model cannot hold"});
+      model_.warnings.push_back(
+          {clause.where, "variable '" + shorten(column.name) +
+                             "' has its lower bound above its upper bound: the model cannot hold"});
   }
 
   // ----- expressions -----
@@ -383,8 +413,10 @@ class Reader {
     bool first = true;
     while (true) {
       Rational sign = 1;
-      if (at_symbol("+") || at_symbol("-")) sign = take().text == "-" ? -1 : 1;
-      else if (!first) break;
+      if (at_symbol("+") || at_symbol("-"))
+        sign = take().text == "-" ? -1 : 1;
+      else if (!first)
+        break;
       term(form, sign);
       first = false;
     }
@@ -413,7 +445,8 @@ class Reader {
   }
 
   // Repeated variables are summed exactly; a repeat within one side is likely a slip, so it is reported.
-  void add_term(LinearForm& form, int j, const Rational& coefficient, const Location& where, bool report_repeat = true) {
+  void add_term(LinearForm& form, int j, const Rational& coefficient, const Location& where,
+                bool report_repeat = true) {
     auto [slot, fresh] = form.position_of.emplace(j, form.terms.size());
     if (fresh) {
       form.terms.emplace_back(j, coefficient);
@@ -450,7 +483,8 @@ class Reader {
     if (!at_symbol("(")) fail(peek(), "a number or '('");
     const Token& open = take();
     if (depth >= max_parenthesis_depth)
-      throw InputError(open.where, "parentheses nested more than " + std::to_string(max_parenthesis_depth) + " deep",
+      throw InputError(open.where,
+                       "parentheses nested more than " + std::to_string(max_parenthesis_depth) + " deep",
                        "simpler constant arithmetic");
     Rational value = signed_sum(depth + 1);
     expect_symbol(")", "')' closing the '(' at column " + std::to_string(open.where.column));
@@ -462,8 +496,10 @@ class Reader {
     bool first = true;
     while (true) {
       Rational sign = 1;
-      if (at_symbol("+") || at_symbol("-")) sign = take().text == "-" ? -1 : 1;
-      else if (!first) break;
+      if (at_symbol("+") || at_symbol("-"))
+        sign = take().text == "-" ? -1 : 1;
+      else if (!first)
+        break;
       value += sign * product(depth);
       first = false;
     }
@@ -490,11 +526,14 @@ class Reader {
     return token;
   }
   bool at_word(std::string_view word) const { return peek().kind == TokenKind::word && peek().text == word; }
-  bool at_symbol(std::string_view symbol) const { return peek().kind == TokenKind::symbol && peek().text == symbol; }
+  bool at_symbol(std::string_view symbol) const {
+    return peek().kind == TokenKind::symbol && peek().text == symbol;
+  }
   bool at_relation() const { return at_symbol("<=") || at_symbol(">=") || at_symbol("="); }
   bool at_name(std::size_t ahead = 0) const {
     const Token& token = peek(ahead);
-    return token.kind == TokenKind::quoted_name || (token.kind == TokenKind::word && !is_reserved_word(token.text));
+    return token.kind == TokenKind::quoted_name ||
+           (token.kind == TokenKind::word && !is_reserved_word(token.text));
   }
 
   std::string take_name(const std::string& expected) {
@@ -512,8 +551,9 @@ class Reader {
     const Token& token = peek();
     std::string name = take_name("a " + kind + " name");
     if (auto seen = taken.find(name); seen != taken.end())
-      throw InputError(token.where, "the " + kind + " name '" + shorten(name) + "' a second time",
-                       "a new name (it is declared on line " + std::to_string(declared_at[seen->second]) + ")");
+      throw InputError(
+          token.where, "the " + kind + " name '" + shorten(name) + "' a second time",
+          "a new name (it is declared on line " + std::to_string(declared_at[seen->second]) + ")");
     return name;
   }
 
@@ -575,9 +615,9 @@ class Reader {
 
 }  // namespace
 
-Model parse_plumb(std::string_view text, const std::string& file) { return Reader(text, file).run(); }
+Model parse_native(std::string_view text, const std::string& file) { return Reader(text, file).run(); }
 
-bool looks_like_plumb(std::string_view text) {
+bool looks_like_native(std::string_view text) {
   std::size_t offset = text.starts_with("\xEF\xBB\xBF") ? 3 : 0;
   while (offset < text.size()) {
     std::size_t end = text.find('\n', offset);
