@@ -1,5 +1,6 @@
 #include "plumb/numeric/rational.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdlib>
 
@@ -176,7 +177,10 @@ std::string to_display(const Rational& value, int significant) {
 std::string exact_and_decimal(const Rational& value) {
   std::string exact = to_fraction(value);
   Decimal decimal = to_decimal(value);
-  if (exact.size() > readable_fraction_length) return "~" + decimal.text;
+  if (exact.size() > readable_fraction_length) {
+    auto digits = std::count_if(exact.begin(), exact.end(), [](char c) { return c >= '0' && c <= '9'; });
+    return "~" + decimal.text + " (a fraction of " + std::to_string(digits) + " digits)";
+  }
   if (decimal.text == exact) return exact;
   return exact + " (" + (decimal.rounded ? "~" : "") + decimal.text + ")";
 }

@@ -57,7 +57,8 @@ void write_values(std::ostream& out, const std::vector<int>& indices, const std:
     out << "\n";
   }
   if (any_shortened)
-    out << "    (fractions too long to read are shown rounded, marked ~; the certificate and --json hold them exactly)\n";
+    out << "    (fractions too long to read are shown rounded, marked ~, with their length; the certificate and --json "
+           "hold them exactly)\n";
 }
 
 }  // namespace
@@ -79,9 +80,6 @@ void write_solve_text(const model::Model& model, const exact::CertifiedSolution&
     bool maximise = model.objective.sense == model::Sense::maximise;
     out << "objective  " << numeric::exact_and_decimal(s.objective) << ", " << (maximise ? "maximised" : "minimised")
         << "\n";
-    if (shortened(s.objective))
-      out << "           exactly a fraction of " << numeric::to_fraction(s.objective).size()
-          << " characters, in full in the certificate and --json\n";
     out << "           includes the objective constant " << numeric::exact_and_decimal(model.objective.constant)
         << ": " << detail::constant_rule_text(model.source) << "\n";
     auto indices = listed(s.x, options.all);

@@ -51,6 +51,20 @@ TEST(Printing, FractionAndDecimal) {
   EXPECT_EQ(plumb::numeric::to_display(Rational(1, 3), 4), "~0.3333");
 }
 
+// Text shows an exact value only up to 24 characters; beyond, the rounded decimal marked "~" and the
+// length of the exact fraction (issue 15's rule for numbers people read).
+TEST(ExactAndDecimal, ShortExactLongRoundedWithItsLength) {
+  using plumb::numeric::exact_and_decimal;
+  EXPECT_EQ(exact_and_decimal(Rational(13)), "13");
+  EXPECT_EQ(exact_and_decimal(Rational(1, 8)), "1/8 (0.125)");
+  EXPECT_EQ(exact_and_decimal(Rational(218176400, 237)), "218176400/237 (~920575.527426)");
+  // 24 characters: shown in full; 25: rounded, with the 24 digits of the fraction counted.
+  Rational at_limit = 1 / *parse_decimal("1000000000000000000001");
+  EXPECT_EQ(exact_and_decimal(at_limit), "1/1000000000000000000001 (~1e-21)");
+  Rational over_limit = 1 / *parse_decimal("10000000000000000000001");
+  EXPECT_EQ(exact_and_decimal(over_limit), "~1e-22 (a fraction of 24 digits)");
+}
+
 TEST(CanonicalFraction, StrictForm) {
   using plumb::numeric::parse_canonical_fraction;
   EXPECT_EQ(*parse_canonical_fraction("-3/2", 100), Rational(-3, 2));

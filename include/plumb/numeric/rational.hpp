@@ -47,7 +47,9 @@ std::string to_display(const Rational& value, int significant = 12);
 
 // The one human-readable form of an exact value, shared by every text rendering (checker included):
 // "42", "1/8 (0.125)", "1/3 (~0.333333333333)".  A fraction too long to read (more than
-// readable_fraction_length characters) is shown as its rounded decimal alone: "~5501.84588831".
+// readable_fraction_length characters) is shown as its rounded decimal, marked rounded by "~",
+// with the count of digits of the exact fraction: "~5501.84588829 (a fraction of 1076 digits)".
+// Exact values in full belong in JSON and certificates.
 constexpr std::size_t readable_fraction_length = 24;
 std::string exact_and_decimal(const Rational& value);
 
