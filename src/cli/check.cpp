@@ -3,9 +3,7 @@
 
 #include "plumb/certificate/certificate.hpp"
 #include "plumb/check/check.hpp"
-#include "plumb/present/caution.hpp"
-
-#include <nlohmann/json.hpp>
+#include "plumb/present/check.hpp"
 
 #include <iostream>
 #include <memory>
@@ -23,29 +21,14 @@ struct CheckOptions {
 int run_check(const CheckOptions& options) {
   model::Model m = load_model(options.model);
   certificate::Certificate c = certificate::read_certificate(options.certificate);
-  check::Verdict verdict = check::verify(m, c);
-  const std::string status = certificate::to_string(c.status);
-  const bool other_status = verdict.valid && !options.expect.empty() && status != options.expect;
-  if (options.json) {
-    nlohmann::ordered_json out;
-    out["model"] = options.model.path;
-    out["certificate"] = options.certificate;
-    out["valid"] = verdict.valid;
-    out["status"] = status;
-    if (!options.expect.empty()) out["expected"] = options.expect, out["as_expected"] = verdict.valid && !other_status;
-    if (verdict.valid) out["proven"] = verdict.proven, out["caution"] = present::caution_line;
-    else out["failure"] = verdict.failure;
-    std::cout << out.dump(2) << "\n";
-  } else if (other_status) {
-    std::cout << "not the expected status: " << options.expect << " was expected, but this valid certificate proves "
-              << verdict.proven << "\n";
-  } else if (verdict.valid) {
-    std::cout << "valid: " << verdict.proven << "\n" << present::caution_line << "\n";
-  } else {
-    std::cout << "invalid " << status << " certificate: " << verdict.failure << "\n";
-  }
-  if (!verdict.valid) return exit_certificate_invalid;
-  return other_status ? exit_other_status : exit_ok;
+  present::CheckReport report{options.model.path, options.certificate, certificate::to_string(c.status),
+                              options.expect, check::verify(m, c)};
+  if (options.json)
+    std::cout << present::check_json(report).dump(2) << "\n";
+  else
+    present::write_check_text(report, std::cout);
+  if (!report.verdict.valid) return exit_certificate_invalid;
+  return report.other_status() ? exit_other_status : exit_ok;
 }
 
 }  // namespace

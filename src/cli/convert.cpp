@@ -3,8 +3,8 @@
 
 #include "plumb/model/labels.hpp"
 #include "plumb/model/write.hpp"
+#include "plumb/present/output.hpp"
 
-#include <fstream>
 #include <iostream>
 #include <sstream>
 
@@ -33,60 +33,23 @@ model::Format output_format(const ConvertOptions& options) {
                           "--to mps or --to plumb, or an output file ending in .mps or .plumb");
 }
 
-// MPS holds no labels or title of ours: those travel in the sidecar, so compare the rest.
-model::Model without_labels(model::Model m) {
-  m.title.clear();
-  m.objective.label = {};
-  for (auto& row : m.rows) row.label = {};
-  for (auto& column : m.columns) column.label = column.lower_label = column.upper_label = {};
-  return m;
-}
-
-bool has_labels(const model::Model& m) {
-  if (!m.objective.label.empty()) return true;
-  for (const auto& row : m.rows)
-    if (!row.label.empty()) return true;
-  for (const auto& column : m.columns)
-    if (!column.label.empty() || !column.lower_label.empty() || !column.upper_label.empty()) return true;
-  return false;
-}
-
-void write_file(const std::string& path, const std::string& text) {
-  std::ofstream out(path, std::ios::binary);
-  out << text;
-  out.close();
-  if (!out) throw model::InputError({path}, "a file that cannot be written", "a writable output path");
-}
-
 int convert(const ConvertOptions& options) {
   model::Format format = output_format(options);
   model::Model input = load_model(options.model);
-  std::ostringstream text;
-  if (format == model::Format::mps) model::write_mps(input, text);
-  else model::write_native(input, text);
+  std::string text = model::write_checked(input, format);  // a RoundTripError reaches main: exit 1
+  if (options.output == "-")
+    std::cout << text;
+  else
+    present::write_file(options.output, text, "model");
 
-  // The writers promise a lossless round trip; hold them to it before anything is written.
-  model::ReadOptions read;
-  read.format = format;
-  model::Model back = model::read_model_text(text.str(), options.output, read);
-  bool same = format == model::Format::native ? back.same_content(input)
-                                              : without_labels(back).same_content(without_labels(input));
-  if (!same) {
-    std::cerr << "plumb: the written model does not read back the same; nothing was written (a fault in plumb: "
-                 "please report it with the input)\n";
-    return exit_bad_input;
-  }
-  if (options.output == "-") std::cout << text.str();
-  else write_file(options.output, text.str());
-
-  if (format == model::Format::mps && has_labels(input)) {
+  if (format == model::Format::mps && model::has_labels(input)) {
     if (options.output == "-") {
       std::cerr << "plumb: the model's labels are not in MPS output; write to a file to get them beside it\n";
     } else {
       std::ostringstream labels;
       model::write_labels(input, labels);
       std::string path = model::labels_path_beside(options.output);
-      write_file(path, labels.str());
+      present::write_file(path, labels.str(), "labels");
       std::cerr << "plumb: labels written to " << path << "\n";
     }
   }

@@ -1,15 +1,14 @@
 // plumb solve: solves a model exactly, checks the certificate independently, then reports.
+#include "plumb/exact/solve.hpp"
 #include "command.hpp"
 #include "plumb/certificate/basis.hpp"
 #include "plumb/certificate/certificate.hpp"
-#include "plumb/exact/solve.hpp"
+#include "plumb/present/output.hpp"
 #include "plumb/present/solve.hpp"
 #include "plumb/run/budget.hpp"
 
 #include <chrono>
-#include <cmath>
 #include <cstdio>
-#include <fstream>
 #include <iostream>
 #include <optional>
 
@@ -46,15 +45,6 @@ simplex::Basis start_basis(const std::string& path, const model::Model& model) {
   return std::move(file.basis);
 }
 
-// Writes text to path; false (with a message on stderr) when it cannot.
-bool write_file(const std::string& path, const std::string& text, const char* what) {
-  std::ofstream file(path, std::ios::binary);
-  file << text;
-  if (file.flush()) return true;
-  std::cerr << "plumb: cannot write the " << what << " to " << path << "\n";
-  return false;
-}
-
 // A live progress line on stderr, redrawn in place at most four times a second and whenever the
 // phase changes; only on a terminal, so logs and pipes see nothing but warnings.
 std::function<void(const exact::Progress&)> progress_printer() {
@@ -68,11 +58,7 @@ std::function<void(const exact::Progress&)> progress_printer() {
     if (p.phase == last->phase && now - last->at < std::chrono::milliseconds(250)) return;
     last->at = now;
     last->phase = p.phase;
-    if (std::isnan(p.objective))
-      std::fprintf(stderr, "\r\033[K  %-21s %8ld it  %-50s %7.1f s", p.phase.c_str(), p.iterations, "", p.elapsed_seconds);
-    else
-      std::fprintf(stderr, "\r\033[K  %-21s %8ld it  objective ~%-14.8g infeasibility ~%-9.3g %7.1f s", p.phase.c_str(),
-                   p.iterations, p.objective, p.infeasibility, p.elapsed_seconds);
+    std::fprintf(stderr, "\r\033[K%s", present::progress_line(p).c_str());
   };
 }
 
@@ -112,12 +98,11 @@ int run_solve(const SolveCommandOptions& options) {
               << "); nothing is reported\n";
     return exit_certificate_invalid;
   }
-  if (!options.certificate_path.empty() &&
-      !write_file(options.certificate_path, certificate::to_json_text(result.certificate), "certificate"))
-    return exit_bad_input;
-  if (!options.write_basis_path.empty() &&
-      !write_file(options.write_basis_path, certificate::to_basis_text(model, s.basis), "basis"))
-    return exit_bad_input;
+  if (!options.certificate_path.empty())
+    present::write_file(options.certificate_path, certificate::to_json_text(result.certificate),
+                        "certificate");
+  if (!options.write_basis_path.empty())
+    present::write_file(options.write_basis_path, certificate::to_basis_text(model, s.basis), "basis");
   if (options.json) std::cout << present::solve_json(model, result, figures).dump(2) << "\n";
   else present::write_solve_text(model, result, {options.all, options.certificate_path, options.write_basis_path}, std::cout);
   switch (s.outcome) {

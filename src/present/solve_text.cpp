@@ -4,6 +4,8 @@
 #include "plumb/present/solve.hpp"
 
 #include <algorithm>
+#include <cmath>
+#include <cstdio>
 #include <ostream>
 
 namespace plumb::present {
@@ -57,7 +59,8 @@ void write_values(std::ostream& out, const std::vector<int>& indices, const std:
     out << "\n";
   }
   if (any_shortened)
-    out << "    (fractions too long to read are shown rounded, marked ~, with their length; the certificate and --json "
+    out << "    (fractions too long to read are shown rounded, marked ~, with their length; the certificate "
+           "and --json "
            "hold them exactly)\n";
 }
 
@@ -78,8 +81,8 @@ void write_solve_text(const model::Model& model, const exact::CertifiedSolution&
   auto row_label = [&model](int i) -> const model::Label& { return model.rows[i].label; };
   if (s.outcome == exact::Outcome::optimal) {
     bool maximise = model.objective.sense == model::Sense::maximise;
-    out << "objective  " << numeric::exact_and_decimal(s.objective) << ", " << (maximise ? "maximised" : "minimised")
-        << "\n";
+    out << "objective  " << numeric::exact_and_decimal(s.objective) << ", "
+        << (maximise ? "maximised" : "minimised") << "\n";
     out << "           includes the objective constant " << numeric::exact_and_decimal(model.objective.constant)
         << ": " << detail::constant_rule_text(model.source) << "\n";
     auto indices = listed(s.x, options.all);
@@ -102,6 +105,33 @@ void write_solve_text(const model::Model& model, const exact::CertifiedSolution&
   if (!options.certificate_path.empty()) out << "certificate written to " << options.certificate_path << "\n";
   if (!options.basis_path.empty()) out << "basis written to " << options.basis_path << "\n";
   out << "caution    " << caution_line << "\n";
+}
+
+std::string progress_line(const exact::Progress& p) {
+  std::string line = "  ";
+  auto cell = [&line](const std::string& text, std::size_t width) {
+    line += text;
+    if (text.size() < width) line.append(width - text.size(), ' ');
+  };
+  // The estimates are doubles from the float search, shown like every other number read by people.
+  auto estimate = [](double value, int significant) {
+    return numeric::to_display(Rational(value), significant);
+  };
+  char counts[64];
+  std::snprintf(counts, sizeof counts, " %8ld it  ", p.iterations);
+  cell(p.phase, 21);
+  line += counts;
+  if (std::isnan(p.objective) || std::isnan(p.infeasibility)) {
+    cell("", 50);
+  } else {
+    line += "objective ";
+    cell(estimate(p.objective, 8), 15);
+    line += " infeasibility ";
+    cell(estimate(p.infeasibility, 3), 10);
+  }
+  char seconds[32];
+  std::snprintf(seconds, sizeof seconds, " %7.1f s", p.elapsed_seconds);
+  return line + seconds;
 }
 
 }  // namespace plumb::present

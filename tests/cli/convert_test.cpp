@@ -94,4 +94,22 @@ TEST_F(Convert, BadInputWritesNothing) {
   EXPECT_FALSE(fs::exists(path("out.plumb")));
 }
 
+// One way to write a file for every command (present::write_file): a path that cannot be written
+// is one message naming what and where, exit 1, for convert's model and solve's certificate alike.
+TEST_F(Convert, UnwritableOutputIsOneMessageAndExitOne) {
+  std::string nowhere = path("no-such-folder/blend.plumb");
+  Outcome convert = plumb("'" + corpus + "/summer-blend.mps' '" + nowhere + "'");
+  EXPECT_EQ(convert.status, 1);
+  EXPECT_EQ(convert.err, "plumb: cannot write the model to " + nowhere + "\n");
+
+  std::string certificate = path("no-such-folder/blend.json");
+  std::string command = std::string("'") + PLUMB_EXECUTABLE + "' solve '" + corpus +
+                        "/summer-blend.plumb' --quiet --certificate '" + certificate + "' >'" +
+                        path("stdout.txt") + "' 2>'" + path("stderr.txt") + "'";
+  int status = std::system(command.c_str());
+  EXPECT_EQ(WIFEXITED(status) ? WEXITSTATUS(status) : -1, 1);
+  EXPECT_EQ(slurp(path("stderr.txt")), "plumb: cannot write the certificate to " + certificate + "\n");
+  EXPECT_EQ(slurp(path("stdout.txt")), "");
+}
+
 }  // namespace

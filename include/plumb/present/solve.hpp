@@ -23,6 +23,11 @@ struct SolveTextOptions {
 void write_solve_text(const model::Model& model, const exact::CertifiedSolution& result,
                       const SolveTextOptions& options, std::ostream& out);
 
+// One state of the live progress line: phase, iterations, the float search's objective and
+// infeasibility estimates (rounded, marked ~, in the numbers' one text form), elapsed seconds.
+// Cells are padded so that successive lines keep their columns.
+std::string progress_line(const exact::Progress& progress);
+
 // Figures of the run that the solution itself does not hold.
 struct RunFigures {
   double solve_seconds = 0;    // wall time of the whole certified solve, the check included
