@@ -2,21 +2,12 @@
 #include "command.hpp"
 #include "plumb/run/budget.hpp"
 
-#include <csignal>
 #include <iostream>
 #include <new>
 
 namespace plumb::cli {
-namespace {
 
-extern "C" void on_interrupt(int) { run::interrupt_flag().store(true); }
-
-}  // namespace
-
-void stop_on_interrupt() {
-  std::signal(SIGINT, on_interrupt);
-  std::signal(SIGTERM, on_interrupt);
-}
+void stop_on_interrupt() { run::stop_on_interrupt_signals(); }
 
 void add_model_options(CLI::App& command, ModelOptions& options) {
   command.add_option("model", options.path, "Model file: MPS (fixed or free, .gz allowed) or .plumb")->required();

@@ -123,8 +123,10 @@ bool LineCursor::next(std::string_view& line) {
   line = text_.substr(offset_, end - offset_);
   offset_ = end + 1;
   ++line_number_;
-  if ((line_number_ & (interrupt_poll_lines - 1)) == 1)
+  if ((line_number_ & (interrupt_poll_lines - 1)) == 1) {
+    if (before_interrupt_poll) before_interrupt_poll(line_number_);
     run::stop_if_interrupted([&] { return "reading " + file_ + ", at line " + std::to_string(line_number_); });
+  }
   if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
   if (line.size() > max_line_length)
     throw InputError(here(), "a line of " + std::to_string(line.size()) + " characters",

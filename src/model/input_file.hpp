@@ -35,6 +35,10 @@ class LineCursor {
   Location here(long column = 0) const { return {file_, line_number_, column}; }
   const std::string& file() const { return file_; }
 
+  // Test seam, null in the program: called with the line number just before each look at the
+  // interrupt flag, so that a test can raise a signal at a known point of a read.
+  static inline void (*before_interrupt_poll)(long line) = nullptr;
+
  private:
   std::string_view text_;
   std::size_t offset_ = 0;

@@ -1,8 +1,9 @@
 #include "plumb/run/budget.hpp"
 
-#include <cstdio>
 #include <sys/resource.h>
 #include <unistd.h>
+#include <csignal>
+#include <cstdio>
 
 namespace plumb::run {
 
@@ -19,6 +20,15 @@ std::string describe(StopReason reason) {
 std::atomic<bool>& interrupt_flag() {
   static std::atomic<bool> flag{false};
   return flag;
+}
+
+namespace {
+extern "C" void on_interrupt(int) { interrupt_flag().store(true); }
+}  // namespace
+
+void stop_on_interrupt_signals() {
+  std::signal(SIGINT, on_interrupt);
+  std::signal(SIGTERM, on_interrupt);
 }
 
 Budget::Budget(std::optional<double> time_limit_seconds, std::optional<std::size_t> memory_limit_mib)

@@ -16,6 +16,10 @@ std::string describe(StopReason reason);
 // Set from a signal handler (SIGINT, SIGTERM); every Budget sees it.
 std::atomic<bool>& interrupt_flag();
 
+// Installs handlers for SIGINT and SIGTERM that set interrupt_flag(), so that the next poll stops
+// the work: what a command does before it reads a model.
+void stop_on_interrupt_signals();
+
 class Budget {
  public:
   Budget() = default;
