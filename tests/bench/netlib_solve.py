@@ -1,6 +1,7 @@
 #!/usr/bin/env python3
 """Benchmark of `plumb solve` on the Netlib LPs: solve, check each certificate, compare with the
-published optima, and write the results into docs/benchmarks.md.
+exact optima (exact-optima.csv: T. Koch, "The final NETLIB-LP results", Oper. Res. Letters 32,
+2004) and, where none is listed, the published ones, and write the results into docs/benchmarks.md.
 
     tests/bench/netlib_solve.py [SHARED] [--plumb BIN] [--time-limit S] [--only a,b] [--output FILE]
 
@@ -68,6 +69,27 @@ def published_optima(folder):
         return {row["instance"]: row["published_optimum"].strip() for row in csv.DictReader(table)}
 
 
+def exact_optima(folder):
+    """instance -> (exact optimum rounded, its significant digits), from exact-optima.csv if present."""
+    path = folder / "exact-optima.csv"
+    if not path.is_file():
+        return {}
+    with open(path, newline="") as table:
+        return {row["instance"]: (row["exact_optimum_rounded"].strip(), int(row["digits"]))
+                for row in csv.DictReader(table)}
+
+
+def significant_digit_unit(value, digits):
+    """The place value of the last of `digits` significant digits of a nonzero value."""
+    exponent = 0
+    magnitude = abs(value)
+    while magnitude >= Fraction(10) ** (exponent + 1):
+        exponent += 1
+    while magnitude < Fraction(10) ** exponent:
+        exponent -= 1
+    return Fraction(10) ** (exponent - digits + 1)
+
+
 def last_digit_unit(text):
     """The place value of the last digit of a published decimal: '5.5018458883E+03' -> 1e-7."""
     match = re.fullmatch(r"[+-]?(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?", text)
@@ -130,19 +152,27 @@ def solve_instance(plumb, model, scratch, time_limit):
     return result
 
 
-def agreement(result, published):
-    """'yes', 'no' or '' (nothing to compare); the published optima leave the objective constant out."""
-    if not published or "objective" not in result:
+def agreement(result, published, exact=None):
+    """'yes, N exact digits' or 'no' against exact-optima.csv when it lists the instance, else 'yes
+    (published)' or 'no' against published.csv, else '' (nothing to compare).  Both leave the
+    objective constant out; agreement is within half a unit of the last digit given."""
+    if "objective" not in result:
         return ""
     value = result["objective"] - result["constant"]
-    return "yes" if abs(value - Fraction(published)) * 2 <= last_digit_unit(published) else "no"
+    if exact:
+        listed, digits = exact
+        unit = significant_digit_unit(Fraction(listed), digits) if Fraction(listed) else Fraction(10) ** -digits
+        return f"yes, {digits} exact digits" if abs(value - Fraction(listed)) * 2 <= unit else "no"
+    if not published:
+        return ""
+    return "yes (published)" if abs(value - Fraction(published)) * 2 <= last_digit_unit(published) else "no"
 
 
 def seconds_text(value):
     return "" if value is None else f"{value:.4f}"
 
 
-def table_row(result, published):
+def table_row(result, published, exact):
     stats = result.get("stats", {})
     notes = []
     if stats.get("correction_rounds"):
@@ -164,7 +194,7 @@ def table_row(result, published):
     if stats:
         iterations = f"{stats.get('float_iterations', 0)} + {stats.get('exact_iterations', 0)}"
     cells = [result["instance"], result["status"], "yes" if result["certified"] else "no",
-             result.get("objective_decimal", ""), published or "(none)", agreement(result, published),
+             result.get("objective_decimal", ""), published or "(none)", agreement(result, published, exact),
              seconds_text(stats.get("float_seconds")), seconds_text(stats.get("certify_seconds")),
              seconds_text(result["total_seconds"]), iterations, f"{result['peak_mib']:.0f}", "; ".join(notes)]
     return "| " + " | ".join(cell.replace("|", "/") for cell in cells) + " |"
@@ -193,7 +223,7 @@ def git_revision():
         return "unknown revision"
 
 
-def section(results, optima, time_limit, started, revision, load_before, load_after):
+def section(results, optima, exact, time_limit, started, revision, load_before, load_after):
     header = ["instance", "status", "certified", "objective (exact, decimal)", "published", "agrees",
               "float s", "certify s", "total s", "iterations float + exact", "peak MiB", "notes"]
     lines = [BEGIN, "",
@@ -201,18 +231,19 @@ def section(results, optima, time_limit, started, revision, load_before, load_af
              f"Load average {load_before:.1f} at the start and {load_after:.1f} at the end "
              f"({os.cpu_count()} cores).", "",
              "| " + " | ".join(header) + " |", "|" + "|".join("---" for _ in header) + "|"]
-    lines += [table_row(r, optima.get(r["instance"], "")) for r in results]
-    differing = [r for r in results if agreement(r, optima.get(r["instance"], "")) == "no"]
+    lines += [table_row(r, optima.get(r["instance"], ""), exact.get(r["instance"])) for r in results]
+    differing = [r for r in results
+                 if agreement(r, optima.get(r["instance"], ""), exact.get(r["instance"])) == "no"]
     if differing:
-        lines += ["", "Certified value and published optimum differ (published values leave out the objective "
-                      "constant; the certificate decides):", ""]
+        lines += ["", "Certified value and reference optimum differ (the exact optimum where exact-optima.csv "
+                      "lists one, else the published one; both leave out the objective constant):", ""]
         for r in differing:
             value = r["objective"] - r["constant"]
-            published = Fraction(optima[r["instance"]])
-            relative = abs(value - published) / abs(published) if published else abs(value)
+            reference = exact[r["instance"]][0] if r["instance"] in exact else optima[r["instance"]]
+            relative = abs(value - Fraction(reference)) / abs(Fraction(reference)) if Fraction(reference) else abs(value)
             lines.append(f"- {r['instance']}: certified {r['objective_decimal']}"
                          + (f" ({float(value):.11g} without the constant)" if r["constant"] else "")
-                         + f", published {optima[r['instance']]}, relative difference {float(relative):.2g}")
+                         + f", reference {reference}, relative difference {float(relative):.2g}")
     lines += ["", summary_line(results), "", END]
     return "\n".join(lines)
 
@@ -239,6 +270,7 @@ def main():
     options = parse_arguments()
     folder = netlib_folder(options.shared)
     optima = published_optima(folder)
+    exact = exact_optima(folder)
     models = sorted(folder.glob("*.mps.gz"))
     if options.only:
         wanted = set(options.only.split(","))
@@ -256,7 +288,7 @@ def main():
                   f"total {result['total_seconds']:7.2f} s  float {stats.get('float_seconds', 0):7.2f} s  "
                   f"certify {stats.get('certify_seconds', 0):7.2f} s  peak {result['peak_mib']:5.0f} MiB",
                   file=sys.stderr, flush=True)
-    write_section(options.output, section(results, optima, options.time_limit, started, revision, load_before, os.getloadavg()[0]))
+    write_section(options.output, section(results, optima, exact, options.time_limit, started, revision, load_before, os.getloadavg()[0]))
     print(summary_line(results))
 
 
