@@ -75,6 +75,12 @@ struct FeasibleCase {
   std::string certified_instead = "";
 };
 
+// Test listings (--gtest_list_tests, CTest) show the case by name instead of its raw bytes.
+void PrintTo(const FeasibleCase& c, std::ostream* out) {
+  *out << c.instance;
+  if (!c.certified_instead.empty()) *out << " (certified " << c.certified_instead << ")";
+}
+
 model::Model read_netlib(const std::string& instance) {
   model::ReadOptions read;
   // The Netlib readme's optimum for e226 leaves out its objective constant (shared/README.md).
