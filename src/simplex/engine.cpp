@@ -5,6 +5,50 @@
 #include <limits>
 
 namespace plumb::simplex::detail {
+namespace {
+
+// A safety net, not a budget: the simplex method takes a small multiple of the row count in
+// iterations on nearly all practical LPs (common practice), so ten per variable plus a floor for
+// tiny models is reached only by cycling or stalling; the search then reports failure and the
+// exact engine takes over.
+constexpr long iterations_per_variable = 10;
+constexpr long iteration_floor = 10000;
+
+// The pivot row is computed row-wise over rho's nonzeros when rho is sparser than this share of
+// the rows, else column by column over every nonbasic column: row-wise work grows with rho's
+// nonzeros times the row lengths, column-wise with all of A.  Common practice puts the switch
+// between a tenth and a third; this value is untuned.  (BasisFactor::sparse_density, 0.1, is the
+// like switch of the triangular solves, whose dense loops are cheaper than a pass over A.)
+constexpr double row_wise_pivot_row_density = 0.2;
+
+// The pivot alpha is computed twice, from the entering column (ftran) and from the pivot row
+// (btran): a relative gap above this, or an alpha too small to divide by, means the factors have
+// drifted, so they are refreshed and the pivot retried.  1e-7 is the pivot tolerance; 1e-9 is two
+// orders below it, where a quotient would magnify rounding beyond the tolerances.
+constexpr double pivot_agreement = 1e-7;
+constexpr double smallest_pivot = 1e-9;
+// Disagreements tolerated over a search before it gives up with NumericalTrouble (the exact
+// engine then takes over): the dual loop carries the search and recovers by refactoring or by
+// rejecting the row; the primal loop only cleans up a few iterations after it, so fewer there.
+constexpr int dual_disagreements_allowed = 1000;
+constexpr int primal_disagreements_allowed = 200;
+
+// Dual steepest-edge weights are squared norms of rows of B^-1, positive in exact arithmetic; the
+// update formula can drive them to zero or below by rounding, which would make a row look
+// infinitely attractive, so they are kept above this floor (common practice).
+constexpr double weight_floor = 1e-4;
+
+// Dual phase 1's auxiliary problem boxes a free variable in [-box, box]: wide enough that the
+// box is inactive for ordinary scaled data, small enough to keep the auxiliary primal values
+// moderate (the value of Koberstein 2005, section 4.3, from memory).
+constexpr double free_variable_box = 1000;
+
+// Cost perturbation, relative to (1 + |cost|) and times a random factor in [1, 2): ten times the
+// dual tolerance, so perturbed reduced costs clear it, and small enough that removing the
+// perturbation at the end costs few primal iterations (common practice).
+constexpr double cost_perturbation = 1e-6;
+
+}  // namespace
 
 Engine::Engine(const LpData& lp, const FloatOptions& options)
     : lp_(lp),
@@ -31,7 +75,7 @@ Engine::Engine(const LpData& lp, const FloatOptions& options)
   work_.assign(m_, 0);
   alpha_row_.assign(total, 0);
   in_row_.assign(total, 0);
-  iteration_limit_ = 10L * total + 10000;
+  iteration_limit_ = iterations_per_variable * total + iteration_floor;
   std::vector<VarStatus> slack(total, VarStatus::basic);
   for (int j = 0; j < n_; ++j) slack[j] = default_status(j);
   start_from(slack);
@@ -199,6 +243,15 @@ void Engine::compute_dual() {
   for (int i = 0; i < m_; ++i) d_[n_ + i] = status_[n_ + i] == VarStatus::basic ? 0 : cost_[n_ + i] + work_[i];
 }
 
+bool Engine::pivot_disagrees(double alpha, double row_alpha, int allowed) {
+  if (std::abs(alpha - row_alpha) <= pivot_agreement * (1 + std::abs(alpha)) &&
+      std::abs(alpha) >= smallest_pivot)
+    return false;
+  clear_pivot_row();
+  if (++trouble_ > allowed) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
+  return true;
+}
+
 void Engine::compute_pivot_row() {
   // Row-wise through the nonzeros of rho when it is sparse, else column by column.
   const int nonzeros = rho_.count();
@@ -209,7 +262,7 @@ void Engine::compute_pivot_row() {
     }
     alpha_row_[j] += v;
   };
-  if (nonzeros < 0.2 * m_) {
+  if (nonzeros < row_wise_pivot_row_density * m_) {
     for (int i : rho_.index) {
       double r = rho_[i];
       if (r == 0) continue;
@@ -388,9 +441,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     for_column(q, [&](int i, double v) { column_.add(i, v); });
     factor_.ftran_entering(column_);
     const double alpha = column_[r];
-    if (std::abs(alpha - alpha_row_[q]) > 1e-7 * (1 + std::abs(alpha)) || std::abs(alpha) < 1e-9) {
-      clear_pivot_row();
-      if (++trouble_ > 1000) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
+    if (pivot_disagrees(alpha, alpha_row_[q], dual_disagreements_allowed)) {
       if (factor_.update_count() > 0) {
         if (refresh_dual_feasible()) return LoopEnd::restart;
       } else {
@@ -435,9 +486,9 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     for (int k : column_.index) {
       if (k == r || column_[k] == 0) continue;
       double kappa = column_[k] / alpha;
-      weight_[k] = std::max(weight_[k] + kappa * (kappa * rho_norm - 2 * tau_[k]), 1e-4);
+      weight_[k] = std::max(weight_[k] + kappa * (kappa * rho_norm - 2 * tau_[k]), weight_floor);
     }
-    weight_[r] = std::max(rho_norm / (alpha * alpha), 1e-4);
+    weight_[r] = std::max(rho_norm / (alpha * alpha), weight_floor);
 
     const double bound = to_lower ? lower_[leaving] : upper_[leaving];
     const double primal_step = (x_[leaving] - bound) / alpha;
@@ -495,9 +546,7 @@ Engine::LoopEnd Engine::primal_loop() {
     rho_.add(r, 1.0);
     factor_.btran(rho_);
     compute_pivot_row();
-    if (std::abs(alpha - alpha_row_[q]) > 1e-7 * (1 + std::abs(alpha))) {
-      clear_pivot_row();
-      if (++trouble_ > 200) throw NumericalTrouble{"pivots keep disagreeing between row and column"};
+    if (pivot_disagrees(alpha, alpha_row_[q], primal_disagreements_allowed)) {
       if (factor_.update_count() > 0) {
         if (refresh()) return LoopEnd::restart;
         continue;
@@ -529,7 +578,8 @@ Engine::LoopEnd Engine::dual_phase_one() {
     if (has_lower && has_upper) lower_[j] = upper_[j] = 0;
     else if (has_lower) lower_[j] = 0, upper_[j] = 1;
     else if (has_upper) lower_[j] = -1, upper_[j] = 0;
-    else lower_[j] = -1000, upper_[j] = 1000;
+    else
+      lower_[j] = -free_variable_box, upper_[j] = free_variable_box;
   }
   for (int j = 0; j < total; ++j)
     if (status_[j] != VarStatus::basic) set_nonbasic(j, d_[j] >= 0 ? VarStatus::at_lower : VarStatus::at_upper);
@@ -550,7 +600,7 @@ void Engine::perturb_costs() {
   // Only nonbasic costs move: a basic cost would change every reduced cost through the duals.
   for (int j = 0; j < n_; ++j) {
     if (status_[j] == VarStatus::basic || fixed(j) || (lower_[j] == -inf_ && upper_[j] == inf_)) continue;
-    double size = 1e-6 * (1 + std::abs(cost_[j])) * (1 + unit(random_));
+    double size = cost_perturbation * (1 + std::abs(cost_[j])) * (1 + unit(random_));
     cost_[j] += status_[j] == VarStatus::at_upper ? -size : size;
   }
   costs_modified_ = true;

@@ -66,6 +66,9 @@ class Engine {
   void compute_dual();
   void compute_pivot_row();  // alpha_row_ from rho_, over nonbasic variables
   void clear_pivot_row();
+  // True (the pivot row cleared) when alpha from the column and from the row disagree or alpha is
+  // too small; throws NumericalTrouble after more than `allowed` such pivots in all.
+  bool pivot_disagrees(double alpha, double row_alpha, int allowed);
   double primal_infeasibility(int j) const;  // > 0 when outside its bounds beyond tolerance
   int count_primal_infeasible() const;
   double dual_infeasibility(int j) const;  // > 0 when its reduced cost has the wrong sign
