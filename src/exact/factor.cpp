@@ -44,6 +44,151 @@ bool is_unit(const Rational& value) {
   return mpz_cmp_ui(mpq_denref(q), 1) == 0 && mpz_cmpabs_ui(mpq_numref(q), 1) == 0;
 }
 
+using Entries = std::vector<std::pair<int, Rational>>;
+
+// The active submatrix of the elimination, column-wise with values and row-wise as a pattern.
+struct ActiveSubmatrix {
+  std::vector<Entries> columns;
+  std::vector<std::vector<int>> row_pattern;
+  std::vector<char> column_done, row_done;
+  std::vector<int> where;    // the Schur update's index of a row within the column being updated
+  std::vector<int> emptied;  // rows whose entry cancelled in that column
+
+  ActiveSubmatrix(int m, const std::vector<SparseColumn>& given)
+      : columns(given.size()),
+        row_pattern(static_cast<std::size_t>(m)),
+        column_done(given.size(), 0),
+        row_done(static_cast<std::size_t>(m), 0),
+        where(static_cast<std::size_t>(m), -1) {
+    for (std::size_t c = 0; c < given.size(); ++c) {
+      const SparseColumn& column = given[c];
+      for (std::size_t e = 0; e < column.rows.size(); ++e) {
+        if (is_zero(column.values[e])) continue;
+        columns[c].emplace_back(column.rows[e], column.values[e]);
+        row_pattern[column.rows[e]].push_back(static_cast<int>(c));
+      }
+    }
+  }
+
+  struct Choice {
+    int row = -1, column = -1;
+  };
+
+  // Markowitz search, restricted to a few shortest columns and rows (common practice): the entry
+  // of least (row count - 1) (column count - 1), a unit preferred among equals.  Columns found
+  // empty are done and listed in `dependent`; no column is chosen when none is left.
+  Choice markowitz_search(std::vector<int>& dependent) {
+    const int k = static_cast<int>(columns.size()), m = static_cast<int>(row_pattern.size());
+    int min_column_count = std::numeric_limits<int>::max(), min_row_count = std::numeric_limits<int>::max();
+    for (int c = 0; c < k; ++c) {
+      if (column_done[c]) continue;
+      int count = static_cast<int>(columns[c].size());
+      if (count == 0) {
+        column_done[c] = 1;
+        dependent.push_back(c);
+      } else {
+        min_column_count = std::min(min_column_count, count);
+      }
+    }
+    if (min_column_count == std::numeric_limits<int>::max()) return {};
+    for (int r = 0; r < m; ++r)
+      if (!row_done[r] && !row_pattern[r].empty())
+        min_row_count = std::min(min_row_count, static_cast<int>(row_pattern[r].size()));
+
+    long best_cost = std::numeric_limits<long>::max();
+    bool best_unit = false;
+    Choice best;
+    auto consider = [&](int r, int c, const Rational& value) {
+      long cost = static_cast<long>(row_pattern[r].size() - 1) * static_cast<long>(columns[c].size() - 1);
+      bool unit = is_unit(value);
+      if (cost < best_cost || (cost == best_cost && unit && !best_unit)) {
+        best_cost = cost, best_unit = unit, best = {r, c};
+      }
+    };
+    constexpr int search_limit = 4;
+    int searched = 0;
+    for (int c = 0; c < k && searched < search_limit; ++c) {
+      if (column_done[c] || static_cast<int>(columns[c].size()) != min_column_count) continue;
+      ++searched;
+      for (const auto& [r, value] : columns[c]) consider(r, c, value);
+      if (best_cost == 0 && best_unit) break;
+    }
+    searched = 0;
+    for (int r = 0; r < m && searched < search_limit && !(best_cost == 0 && best_unit); ++r) {
+      if (row_done[r] || static_cast<int>(row_pattern[r].size()) != min_row_count) continue;
+      ++searched;
+      for (int c : row_pattern[r]) {
+        for (const auto& [row, value] : columns[c])
+          if (row == r) consider(r, c, value);
+      }
+    }
+    return best;
+  }
+
+  // Takes the chosen entry's column and row out of the active submatrix: the column's other
+  // entries, divided by the pivot, become the L multipliers `lower` (by row), the row's other
+  // entries the U row `upper_row` (by position).  Returns the pivot.
+  Rational take_pivot(Choice choice, Entries& lower, Entries& upper_row) {
+    Rational pivot;
+    for (auto& [r, value] : columns[choice.column]) {
+      if (r == choice.row) {
+        pivot = std::move(value);
+        continue;
+      }
+      erase_value(row_pattern[r], choice.column);
+    }
+    for (auto& [r, value] : columns[choice.column]) {
+      if (r == choice.row) continue;
+      value /= pivot;
+      lower.emplace_back(r, std::move(value));
+    }
+    std::sort(lower.begin(), lower.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
+    columns[choice.column].clear();
+    column_done[choice.column] = 1;
+    std::vector<int> row_columns = std::move(row_pattern[choice.row]);
+    row_pattern[choice.row].clear();
+    row_done[choice.row] = 1;
+    std::sort(row_columns.begin(), row_columns.end());
+    for (int c : row_columns) {
+      if (c == choice.column) continue;
+      auto& entries = columns[c];
+      auto it =
+          std::find_if(entries.begin(), entries.end(), [&](const auto& e) { return e.first == choice.row; });
+      upper_row.emplace_back(c, std::move(it->second));
+      *it = std::move(entries.back());
+      entries.pop_back();
+    }
+    return pivot;
+  }
+
+  // Schur complement update: a_ic -= l_i * u_c over the pivot's multipliers and U row; entries
+  // that cancel leave the pattern.
+  void eliminate(const Entries& lower, const Entries& upper_row, Rational& scratch) {
+    for (const auto& [c, u] : upper_row) {
+      auto& entries = columns[c];
+      for (std::size_t e = 0; e < entries.size(); ++e) where[entries[e].first] = static_cast<int>(e);
+      for (const auto& [r, l] : lower) {
+        if (where[r] >= 0) {
+          Rational& target = entries[where[r]].second;
+          subtract_product(target, l, u, scratch);
+          if (is_zero(target)) emptied.push_back(r);
+        } else {
+          mpq_mul(scratch.backend().data(), l.backend().data(), u.backend().data());
+          where[r] = static_cast<int>(entries.size());
+          entries.emplace_back(r, -scratch);
+          row_pattern[r].push_back(c);
+        }
+      }
+      for (const auto& e : entries) where[e.first] = -1;
+      if (!emptied.empty()) {
+        for (int r : emptied) erase_value(row_pattern[r], c);
+        std::erase_if(entries, [](const auto& e) { return is_zero(e.second); });
+        emptied.clear();
+      }
+    }
+  }
+};
+
 }  // namespace
 
 void BasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
@@ -57,130 +202,23 @@ void BasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
   uncovered_rows_.clear();
   upper_column_.clear();
 
-  // The active submatrix, column-wise with values and row-wise as a pattern.
-  std::vector<std::vector<std::pair<int, Rational>>> active(static_cast<std::size_t>(k));
-  std::vector<std::vector<int>> row_pattern(static_cast<std::size_t>(m));
-  for (int c = 0; c < k; ++c) {
-    const SparseColumn& column = columns[c];
-    for (std::size_t e = 0; e < column.rows.size(); ++e) {
-      if (is_zero(column.values[e])) continue;
-      active[c].emplace_back(column.rows[e], column.values[e]);
-      row_pattern[column.rows[e]].push_back(c);
-    }
-  }
-  std::vector<char> column_done(static_cast<std::size_t>(k), 0), row_done(static_cast<std::size_t>(m), 0);
-  std::vector<int> where(static_cast<std::size_t>(m), -1);
-  std::vector<int> emptied;
-
+  ActiveSubmatrix active(m, columns);
   for (;;) {
     run::stop_if_exhausted(budget, [] { return std::string("factorizing the exact basis"); });
-    // Markowitz search (restricted to a few shortest columns and rows, as is common practice).
-    int min_column_count = std::numeric_limits<int>::max(), min_row_count = std::numeric_limits<int>::max();
-    for (int c = 0; c < k; ++c) {
-      if (column_done[c]) continue;
-      int count = static_cast<int>(active[c].size());
-      if (count == 0) {
-        column_done[c] = 1;
-        dependent_columns_.push_back(c);
-      } else {
-        min_column_count = std::min(min_column_count, count);
-      }
-    }
-    if (min_column_count == std::numeric_limits<int>::max()) break;
-    for (int r = 0; r < m; ++r)
-      if (!row_done[r] && !row_pattern[r].empty())
-        min_row_count = std::min(min_row_count, static_cast<int>(row_pattern[r].size()));
-
-    long best_cost = std::numeric_limits<long>::max();
-    bool best_unit = false;
-    int pivot_row = -1, pivot_column = -1;
-    auto consider = [&](int r, int c, const Rational& value) {
-      long cost = static_cast<long>(row_pattern[r].size() - 1) * static_cast<long>(active[c].size() - 1);
-      bool unit = is_unit(value);
-      if (cost < best_cost || (cost == best_cost && unit && !best_unit)) {
-        best_cost = cost, best_unit = unit, pivot_row = r, pivot_column = c;
-      }
-    };
-    constexpr int search_limit = 4;
-    int searched = 0;
-    for (int c = 0; c < k && searched < search_limit; ++c) {
-      if (column_done[c] || static_cast<int>(active[c].size()) != min_column_count) continue;
-      ++searched;
-      for (const auto& [r, value] : active[c]) consider(r, c, value);
-      if (best_cost == 0 && best_unit) break;
-    }
-    searched = 0;
-    for (int r = 0; r < m && searched < search_limit && !(best_cost == 0 && best_unit); ++r) {
-      if (row_done[r] || static_cast<int>(row_pattern[r].size()) != min_row_count) continue;
-      ++searched;
-      for (int c : row_pattern[r]) {
-        for (const auto& [row, value] : active[c])
-          if (row == r) consider(r, c, value);
-      }
-    }
-
+    ActiveSubmatrix::Choice choice = active.markowitz_search(dependent_columns_);
+    if (choice.column < 0) break;
     Pivot pivot;
-    pivot.row = pivot_row;
-    pivot.position = pivot_column;
-    // The pivot column's other entries become the L multipliers.
-    for (auto& [r, value] : active[pivot_column]) {
-      if (r == pivot_row) {
-        pivot.value = std::move(value);
-        continue;
-      }
-      erase_value(row_pattern[r], pivot_column);
-    }
-    for (auto& [r, value] : active[pivot_column]) {
-      if (r == pivot_row) continue;
-      value /= pivot.value;
-      pivot.lower.emplace_back(r, std::move(value));
-    }
-    std::sort(pivot.lower.begin(), pivot.lower.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
-    active[pivot_column].clear();
-    column_done[pivot_column] = 1;
-    // The pivot row's other entries become a row of U.
-    std::vector<int> row_columns = std::move(row_pattern[pivot_row]);
-    row_pattern[pivot_row].clear();
-    row_done[pivot_row] = 1;
-    std::sort(row_columns.begin(), row_columns.end());
-    for (int c : row_columns) {
-      if (c == pivot_column) continue;
-      auto& entries = active[c];
-      auto it = std::find_if(entries.begin(), entries.end(), [&](const auto& e) { return e.first == pivot_row; });
-      pivot.upper_row.emplace_back(c, std::move(it->second));
-      *it = std::move(entries.back());
-      entries.pop_back();
-    }
-    // Schur complement update: a_ic -= l_i * u_c.
-    for (const auto& [c, u] : pivot.upper_row) {
-      auto& entries = active[c];
-      for (std::size_t e = 0; e < entries.size(); ++e) where[entries[e].first] = static_cast<int>(e);
-      for (const auto& [r, l] : pivot.lower) {
-        if (where[r] >= 0) {
-          Rational& target = entries[where[r]].second;
-          subtract_product(target, l, u, scratch_);
-          if (is_zero(target)) emptied.push_back(r);
-        } else {
-          mpq_mul(scratch_.backend().data(), l.backend().data(), u.backend().data());
-          where[r] = static_cast<int>(entries.size());
-          entries.emplace_back(r, -scratch_);
-          row_pattern[r].push_back(c);
-        }
-      }
-      for (const auto& e : entries) where[e.first] = -1;
-      if (!emptied.empty()) {
-        for (int r : emptied) erase_value(row_pattern[r], c);
-        std::erase_if(entries, [](const auto& e) { return is_zero(e.second); });
-        emptied.clear();
-      }
-    }
+    pivot.row = choice.row;
+    pivot.position = choice.column;
+    pivot.value = active.take_pivot(choice, pivot.lower, pivot.upper_row);
+    active.eliminate(pivot.lower, pivot.upper_row, scratch_);
     factor_limbs_ += limbs(pivot.value);
     for (const auto& entry : pivot.lower) factor_limbs_ += limbs(entry.second);
     for (const auto& entry : pivot.upper_row) factor_limbs_ += limbs(entry.second);
     pivots_.push_back(std::move(pivot));
   }
   for (int r = 0; r < m; ++r)
-    if (!row_done[r]) uncovered_rows_.push_back(r);
+    if (!active.row_done[r]) uncovered_rows_.push_back(r);
   std::sort(dependent_columns_.begin(), dependent_columns_.end());
   if (!nonsingular() || k != m) return;
 

@@ -137,8 +137,10 @@ void RefinedSolver::float_solve(const IntegerMatrix& matrix, bool transposed, lo
   }
   for (int i = 0; i < m_; ++i)
     if (work_[i] != 0) work_[i] = std::ldexp(work_[i], static_cast<int>(std::max(exponents[i] - shift, -2000L)));
-  if (transposed) lu_.solve_transposed(work_);
-  else lu_.solve(work_);
+  if (transposed)
+    lu_.solve_transposed(work_);
+  else
+    lu_.solve(work_);
 }
 
 // target -= M z.

@@ -8,6 +8,18 @@
 
 namespace plumb::simplex::detail {
 
+namespace {
+
+void remove_from(std::vector<int>& list, int item) {
+  auto it = std::find(list.begin(), list.end(), item);
+  if (it != list.end()) {
+    *it = list.back();
+    list.pop_back();
+  }
+}
+
+}  // namespace
+
 // Rows keep values, columns keep only their pattern (Suhl & Suhl 1990, section 3); rows and
 // columns sit in doubly linked lists by their count of active entries.
 struct BasisFactor::Active {
@@ -16,6 +28,10 @@ struct BasisFactor::Active {
   std::vector<std::vector<int>> column_rows;
   std::vector<double> row_max;  // largest |value| of the row, negative when stale
   std::vector<int> row_head, row_next, row_prev, column_head, column_next, column_prev;
+  std::vector<int> slot;             // position of a column inside the row being updated, else -1
+  std::vector<double> pivot_values;  // the pivot row, scattered by column
+
+  Active(int m, const SparseVectors& columns);
 
   static void link(std::vector<int>& head, std::vector<int>& next, std::vector<int>& prev, int item, int count) {
     prev[item] = -1;
@@ -44,19 +60,158 @@ struct BasisFactor::Active {
       if (cols[t] == j) return row_values[i][t];
     return 0;
   }
+  void recount_column(int j, int old_count) {
+    unlink(column_head, column_next, column_prev, j, old_count);
+    link(column_head, column_next, column_prev, j, column_count(j));
+  }
+
+  struct Pivot {
+    int row = -1, column = -1;
+  };
+  Pivot markowitz_search(double absolute_tolerance, double pivot_threshold);
+  double take_pivot_row(Pivot pivot, SparseVectors& u_rows);
+  void eliminate_column(Pivot pivot, double pivot_value, int step, const SparseVectors& u_rows,
+                        SparseVectors& l_columns, double drop_tolerance);
 };
 
-namespace {
-
-void remove_from(std::vector<int>& list, int item) {
-  auto it = std::find(list.begin(), list.end(), item);
-  if (it != list.end()) {
-    *it = list.back();
-    list.pop_back();
+BasisFactor::Active::Active(int m, const SparseVectors& columns)
+    : row_columns(m),
+      row_values(m),
+      column_rows(m),
+      row_max(m, -1),
+      row_head(m + 1, -1),
+      row_next(m, -1),
+      row_prev(m, -1),
+      column_head(m + 1, -1),
+      column_next(m, -1),
+      column_prev(m, -1),
+      slot(m, -1),
+      pivot_values(m, 0) {
+  for (int j = 0; j < m; ++j) {
+    for (int p = columns.start[j]; p < columns.start[j + 1]; ++p) {
+      if (columns.value[p] == 0) continue;
+      int i = columns.index[p];
+      row_columns[i].push_back(j);
+      row_values[i].push_back(columns.value[p]);
+      column_rows[j].push_back(i);
+    }
   }
+  for (int i = 0; i < m; ++i) link(row_head, row_next, row_prev, i, row_count(i));
+  for (int j = 0; j < m; ++j) link(column_head, column_next, column_prev, j, column_count(j));
 }
 
-}  // namespace
+// Markowitz search over the sparsest columns and rows, a few candidates deep: the entry of least
+// (row count - 1) (column count - 1) that passes the threshold test; no row when none is left.
+BasisFactor::Active::Pivot BasisFactor::Active::markowitz_search(double absolute_tolerance,
+                                                                 double pivot_threshold) {
+  const int m = static_cast<int>(row_columns.size());
+  Pivot best;
+  double best_cost = std::numeric_limits<double>::infinity();
+  int searched = 0;
+  auto enough = [&](int count) {
+    return best.row >= 0 && (searched >= 4 || best_cost <= double(count - 1) * (count - 1));
+  };
+  for (int count = 1; count <= m; ++count) {
+    for (int j = column_head[count]; j >= 0; j = column_next[j]) {
+      for (int i : column_rows[j]) {
+        double v = std::abs(value_at(i, j));
+        if (v < absolute_tolerance) continue;
+        if (count > 1 && v < pivot_threshold * largest_in_row(i)) continue;
+        double cost = double(row_count(i) - 1) * (count - 1);
+        if (cost < best_cost) best_cost = cost, best = {i, j};
+      }
+      if (best.row >= 0) ++searched;
+      if (enough(count)) break;
+    }
+    if (enough(count)) break;
+    for (int i = row_head[count]; i >= 0; i = row_next[i]) {
+      double limit = std::max(absolute_tolerance, pivot_threshold * largest_in_row(i));
+      for (std::size_t t = 0; t < row_columns[i].size(); ++t) {
+        if (std::abs(row_values[i][t]) < limit) continue;
+        int j = row_columns[i][t];
+        double cost = double(count - 1) * (column_count(j) - 1);
+        if (cost < best_cost) best_cost = cost, best = {i, j};
+      }
+      if (best.row >= 0) ++searched;
+      if (enough(count)) break;
+    }
+    if (enough(count)) break;
+  }
+  return best;
+}
+
+// The pivot row leaves the active matrix and becomes the next row of U (scattered into
+// pivot_values as well); returns the pivot.
+double BasisFactor::Active::take_pivot_row(Pivot pivot, SparseVectors& u_rows) {
+  const int r = pivot.row, c = pivot.column;
+  unlink(row_head, row_next, row_prev, r, row_count(r));
+  unlink(column_head, column_next, column_prev, c, column_count(c));
+  double value = 0;
+  for (std::size_t t = 0; t < row_columns[r].size(); ++t) {
+    int j = row_columns[r][t];
+    double v = row_values[r][t];
+    if (j == c) {
+      value = v;
+      continue;
+    }
+    pivot_values[j] = v;
+    u_rows.push(j, v);
+    int old = column_count(j);
+    remove_from(column_rows[j], r);
+    recount_column(j, old);
+  }
+  u_rows.close();
+  return value;
+}
+
+// Eliminates the pivot column from the other active rows with U's row `step`, recording the
+// multipliers as the next column of L; fill-in below drop_tolerance is not stored.
+void BasisFactor::Active::eliminate_column(Pivot pivot, double pivot_value, int step,
+                                           const SparseVectors& u_rows, SparseVectors& l_columns,
+                                           double drop_tolerance) {
+  const int r = pivot.row, c = pivot.column;
+  for (int i : column_rows[c]) {
+    if (i == r) continue;
+    auto& cols = row_columns[i];
+    auto& vals = row_values[i];
+    int old_count = row_count(i);
+    double multiplier = 0;
+    for (std::size_t t = 0; t < cols.size(); ++t) {
+      if (cols[t] == c) {
+        multiplier = vals[t] / pivot_value;
+        cols[t] = cols.back();
+        vals[t] = vals.back();
+        cols.pop_back();
+        vals.pop_back();
+        break;
+      }
+    }
+    l_columns.push(i, multiplier);
+    for (std::size_t t = 0; t < cols.size(); ++t) slot[cols[t]] = static_cast<int>(t);
+    for (int p = u_rows.start[step]; p < u_rows.start[step + 1]; ++p) {
+      int j = u_rows.index[p];
+      double change = -multiplier * pivot_values[j];
+      if (slot[j] >= 0) {
+        vals[slot[j]] += change;
+      } else if (std::abs(change) > drop_tolerance) {
+        cols.push_back(j);
+        vals.push_back(change);
+        int old = column_count(j);
+        column_rows[j].push_back(i);
+        recount_column(j, old);
+      }
+    }
+    for (int j : cols) slot[j] = -1;
+    row_max[i] = -1;
+    unlink(row_head, row_next, row_prev, i, old_count);
+    link(row_head, row_next, row_prev, i, row_count(i));
+  }
+  l_columns.close();
+  for (int p = u_rows.start[step]; p < u_rows.start[step + 1]; ++p) pivot_values[u_rows.index[p]] = 0;
+  column_rows[c].clear();
+  row_columns[r].clear();
+  row_values[r].clear();
+}
 
 BasisFactor::Singularity BasisFactor::factorize(int m, const SparseVectors& columns) {
   m_ = m;
@@ -64,142 +219,19 @@ BasisFactor::Singularity BasisFactor::factorize(int m, const SparseVectors& colu
   std::vector<int> pivot_row, pivot_position;
   std::vector<double> diagonal;
   SparseVectors l_columns, u_rows;  // per elimination step
-
-  Active a;
-  a.row_columns.assign(m, {});
-  a.row_values.assign(m, {});
-  a.column_rows.assign(m, {});
-  a.row_max.assign(m, -1);
-  for (int j = 0; j < m; ++j) {
-    for (int p = columns.start[j]; p < columns.start[j + 1]; ++p) {
-      if (columns.value[p] == 0) continue;
-      int i = columns.index[p];
-      a.row_columns[i].push_back(j);
-      a.row_values[i].push_back(columns.value[p]);
-      a.column_rows[j].push_back(i);
-    }
-  }
-  a.row_head.assign(m + 1, -1);
-  a.column_head.assign(m + 1, -1);
-  a.row_next.assign(m, -1);
-  a.row_prev.assign(m, -1);
-  a.column_next.assign(m, -1);
-  a.column_prev.assign(m, -1);
-  for (int i = 0; i < m; ++i) Active::link(a.row_head, a.row_next, a.row_prev, i, a.row_count(i));
-  for (int j = 0; j < m; ++j) Active::link(a.column_head, a.column_next, a.column_prev, j, a.column_count(j));
-
   std::vector<char> row_done(m, 0), column_done(m, 0);
-  std::vector<int> slot(m, -1);            // position of a column inside the row being updated
-  std::vector<double> pivot_values(m, 0);  // the pivot row, scattered by column
 
-  auto recount_column = [&](int j, int old_count) {
-    Active::unlink(a.column_head, a.column_next, a.column_prev, j, old_count);
-    Active::link(a.column_head, a.column_next, a.column_prev, j, a.column_count(j));
-  };
-
+  Active active(m, columns);
   for (int step = 0; step < m; ++step) {
-    // Markowitz search over the sparsest columns and rows, a few candidates deep.
-    int best_row = -1, best_column = -1;
-    double best_cost = std::numeric_limits<double>::infinity();
-    int searched = 0;
-    auto enough = [&](int count) {
-      return best_row >= 0 && (searched >= 4 || best_cost <= double(count - 1) * (count - 1));
-    };
-    for (int count = 1; count <= m; ++count) {
-      for (int j = a.column_head[count]; j >= 0; j = a.column_next[j]) {
-        for (int i : a.column_rows[j]) {
-          double v = std::abs(a.value_at(i, j));
-          if (v < absolute_tolerance) continue;
-          if (count > 1 && v < pivot_threshold * a.largest_in_row(i)) continue;
-          double cost = double(a.row_count(i) - 1) * (count - 1);
-          if (cost < best_cost) best_cost = cost, best_row = i, best_column = j;
-        }
-        if (best_row >= 0) ++searched;
-        if (enough(count)) break;
-      }
-      if (enough(count)) break;
-      for (int i = a.row_head[count]; i >= 0; i = a.row_next[i]) {
-        double limit = std::max(absolute_tolerance, pivot_threshold * a.largest_in_row(i));
-        for (std::size_t t = 0; t < a.row_columns[i].size(); ++t) {
-          if (std::abs(a.row_values[i][t]) < limit) continue;
-          int j = a.row_columns[i][t];
-          double cost = double(count - 1) * (a.column_count(j) - 1);
-          if (cost < best_cost) best_cost = cost, best_row = i, best_column = j;
-        }
-        if (best_row >= 0) ++searched;
-        if (enough(count)) break;
-      }
-      if (enough(count)) break;
-    }
-    if (best_row < 0) break;
-
-    const int r = best_row, c = best_column;
-    Active::unlink(a.row_head, a.row_next, a.row_prev, r, a.row_count(r));
-    Active::unlink(a.column_head, a.column_next, a.column_prev, c, a.column_count(c));
-    row_done[r] = 1;
-    column_done[c] = 1;
-    double pivot = 0;
-    // The pivot row leaves the active matrix and becomes row `step` of U.
-    for (std::size_t t = 0; t < a.row_columns[r].size(); ++t) {
-      int j = a.row_columns[r][t];
-      double v = a.row_values[r][t];
-      if (j == c) {
-        pivot = v;
-        continue;
-      }
-      pivot_values[j] = v;
-      u_rows.push(j, v);
-      int old = a.column_count(j);
-      remove_from(a.column_rows[j], r);
-      recount_column(j, old);
-    }
-    u_rows.close();
-    pivot_row.push_back(r);
-    pivot_position.push_back(c);
-    diagonal.push_back(pivot);
-
-    // Eliminate column c from the other rows.
-    for (int i : a.column_rows[c]) {
-      if (i == r) continue;
-      auto& cols = a.row_columns[i];
-      auto& vals = a.row_values[i];
-      int old_count = a.row_count(i);
-      double multiplier = 0;
-      for (std::size_t t = 0; t < cols.size(); ++t) {
-        if (cols[t] == c) {
-          multiplier = vals[t] / pivot;
-          cols[t] = cols.back();
-          vals[t] = vals.back();
-          cols.pop_back();
-          vals.pop_back();
-          break;
-        }
-      }
-      l_columns.push(i, multiplier);
-      for (std::size_t t = 0; t < cols.size(); ++t) slot[cols[t]] = static_cast<int>(t);
-      for (int p = u_rows.start[step]; p < u_rows.start[step + 1]; ++p) {
-        int j = u_rows.index[p];
-        double change = -multiplier * pivot_values[j];
-        if (slot[j] >= 0) {
-          vals[slot[j]] += change;
-        } else if (std::abs(change) > drop_tolerance) {
-          cols.push_back(j);
-          vals.push_back(change);
-          int old = a.column_count(j);
-          a.column_rows[j].push_back(i);
-          recount_column(j, old);
-        }
-      }
-      for (int j : cols) slot[j] = -1;
-      a.row_max[i] = -1;
-      Active::unlink(a.row_head, a.row_next, a.row_prev, i, old_count);
-      Active::link(a.row_head, a.row_next, a.row_prev, i, a.row_count(i));
-    }
-    l_columns.close();
-    for (int p = u_rows.start[step]; p < u_rows.start[step + 1]; ++p) pivot_values[u_rows.index[p]] = 0;
-    a.column_rows[c].clear();
-    a.row_columns[r].clear();
-    a.row_values[r].clear();
+    Active::Pivot pivot = active.markowitz_search(absolute_tolerance, pivot_threshold);
+    if (pivot.row < 0) break;
+    row_done[pivot.row] = 1;
+    column_done[pivot.column] = 1;
+    double pivot_value = active.take_pivot_row(pivot, u_rows);
+    pivot_row.push_back(pivot.row);
+    pivot_position.push_back(pivot.column);
+    diagonal.push_back(pivot_value);
+    active.eliminate_column(pivot, pivot_value, step, u_rows, l_columns, drop_tolerance);
   }
 
   Singularity singular;
