@@ -1,7 +1,7 @@
 // Basis files (docs/basis.md): the deterministic writer and the strict reader.
 #include "plumb/certificate/basis.hpp"
 
-#include "strict_json.hpp"
+#include "plumb/certificate/strict_json.hpp"
 
 #include <functional>
 #include <limits>

@@ -2,7 +2,7 @@
 #include "plumb/certificate/certificate.hpp"
 
 #include "plumb/model/error.hpp"
-#include "strict_json.hpp"
+#include "plumb/certificate/strict_json.hpp"
 
 #include <algorithm>
 #include <limits>

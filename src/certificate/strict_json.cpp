@@ -1,6 +1,6 @@
 // Strict JSON: nlohmann's parser driven through a SAX handler that counts bytes, so every refusal
 // can say where it happened; the document is built by nlohmann's own DOM builder.
-#include "strict_json.hpp"
+#include "plumb/certificate/strict_json.hpp"
 
 #include <algorithm>
 #include <cstddef>
@@ -17,23 +17,7 @@ namespace {
 
 using Json = nlohmann::ordered_json;
 
-// A char iterator that reports how many bytes the parser has taken so far.
-struct CountingIterator {
-  using iterator_category = std::input_iterator_tag;
-  using value_type = char;
-  using difference_type = std::ptrdiff_t;
-  using pointer = const char*;
-  using reference = const char&;
-  const char* at;
-  std::size_t* consumed;
-  char operator*() const { return *at; }
-  CountingIterator& operator++() {
-    ++at;
-    ++*consumed;
-    return *this;
-  }
-  bool operator==(const CountingIterator& other) const { return at == other.at; }
-};
+}  // namespace
 
 model::Location location_of(std::string_view text, const std::string& file, std::size_t index) {
   index = std::min(index, text.size());
@@ -43,6 +27,8 @@ model::Location location_of(std::string_view text, const std::string& file, std:
   long column = static_cast<long>(last_newline == std::string_view::npos ? index : index - last_newline - 1) + 1;
   return {file, line, column};
 }
+
+namespace {
 
 struct Refusal {
   std::size_t index;  // byte where the refused thing starts

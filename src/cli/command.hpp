@@ -18,6 +18,8 @@ enum Exit : int {
   exit_stopped = 3,  // a time, memory or interrupt limit was reached; nothing certified
   exit_certificate_invalid = 4,
   exit_other_status = 5,  // plumb check --expect: a valid certificate, but of another status
+  exit_plan_infeasible = 5,  // plumb audit: the plan misses a side or bound (within the tolerance or not)
+  exit_outside_gap = 6,      // plumb audit: feasible, but not proven within --gap of the best
   exit_infeasible = 10,
   exit_unbounded = 11,
 };
@@ -30,6 +32,7 @@ struct ModelOptions {
   std::string path;
   std::string labels;
   bool ignore_objective_rhs = false;
+  std::string objective_sense;  // "min", "max" or empty: as the file says
 };
 void add_model_options(CLI::App& command, ModelOptions& options);
 model::Model load_model(const ModelOptions& options);
@@ -43,5 +46,6 @@ void add_inspect(CLI::App& app, Action& action);
 void add_convert(CLI::App& app, Action& action);
 void add_solve(CLI::App& app, Action& action);
 void add_check(CLI::App& app, Action& action);
+void add_audit(CLI::App& app, Action& action);
 
 }  // namespace plumb::cli

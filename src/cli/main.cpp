@@ -15,6 +15,9 @@ void add_model_options(CLI::App& command, ModelOptions& options) {
   command.add_flag("--ignore-objective-rhs", options.ignore_objective_rhs,
                    "Leave out an MPS RHS entry on the objective row instead of taking its negative "
                    "as the objective constant");
+  command.add_option("--objective-sense", options.objective_sense,
+                     "min or max: the objective sense, whatever the file says (an MPS file without OBJSENSE minimises)")
+      ->check(CLI::IsMember({"min", "max"}));
 }
 
 model::Model load_model(const ModelOptions& options) {
@@ -22,7 +25,11 @@ model::Model load_model(const ModelOptions& options) {
   read.labels_path = options.labels;
   if (options.ignore_objective_rhs) read.constant_rule = model::ObjectiveConstantRule::ignored;
   model::Model m = model::read_model(options.path, read);
+  if (!options.objective_sense.empty())
+    model::set_sense_by_option(m, options.objective_sense == "max" ? model::Sense::maximise : model::Sense::minimise);
   for (const auto& warning : m.warnings) std::cerr << model::format_warning(warning) << "\n";
+  if (auto note = model::sense_comment_note(m.source, m.objective.sense); note && note->warn)
+    std::cerr << "plumb: warning: " << options.path << ": " << note->text << "\n";
   return m;
 }
 
@@ -38,6 +45,7 @@ int main(int argc, char** argv) {
   add_convert(app, action);
   add_solve(app, action);
   add_check(app, action);
+  add_audit(app, action);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

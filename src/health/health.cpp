@@ -1,6 +1,7 @@
 #include "plumb/health/health.hpp"
 
 #include "duplicates.hpp"
+#include "plumb/model/read.hpp"
 
 #include <algorithm>
 
@@ -165,6 +166,10 @@ void collect_findings(HealthReport& report) {
   add(Severity::error, "crossed-rows", report.crossed_rows.size());
   add(Severity::error, "crossed-columns", report.crossed_columns.size());
   add(Severity::error, "infeasible-empty-rows", report.infeasible_empty_rows.size());
+  if (auto note = model::sense_comment_note(report.source, report.sense)) {
+    report.sense_comment = note->text;
+    add(note->warn ? Severity::warning : Severity::note, "sense-comment", 1);
+  }
   add(Severity::warning, "unbounded-empty-columns", report.unbounded_empty_columns.size());
   add(Severity::warning, "duplicate-rows", report.duplicate_rows.size());
   add(Severity::warning, "duplicate-columns", report.duplicate_columns.size());

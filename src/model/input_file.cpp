@@ -1,4 +1,4 @@
-#include "input_file.hpp"
+#include "plumb/model/input_file.hpp"
 
 #include "plumb/run/budget.hpp"
 

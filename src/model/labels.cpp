@@ -1,7 +1,8 @@
-// Labels sidecar reader (docs/labels.md): RFC 4180 CSV, one line per row, column or bound.
+// Labels sidecar reader (docs/labels.md): RFC 4180 CSV (model/csv.hpp), one line per row, column or bound.
 #include "plumb/model/labels.hpp"
 
-#include "input_file.hpp"
+#include "plumb/model/input_file.hpp"
+#include "plumb/model/csv.hpp"
 
 #include <array>
 #include <filesystem>
@@ -13,83 +14,12 @@ namespace {
 
 constexpr std::array<std::string_view, 6> header = {"name", "kind", "statement", "unit", "group", "hard"};
 
-struct Field {
-  std::string text;
-  Location where;
-};
-
-struct Record {
-  std::vector<Field> fields;
-  Location where;  // where the record starts
-};
-
-// Reads RFC 4180 records: fields split by commas, quoted fields may hold commas, newlines and "".
-class CsvReader {
- public:
-  CsvReader(std::string_view text, const std::string& file) : cursor_(text, file) {}
-
-  // False at the end of the text; blank lines are skipped.
-  bool next(Record& record) {
-    std::string_view line;
-    do {
-      if (!cursor_.next(line)) return false;
-    } while (line.empty());
-    record.fields.clear();
-    record.where = cursor_.here(1);
-    std::size_t i = 0;
-    while (true) {
-      Field field{"", cursor_.here(static_cast<long>(i) + 1)};
-      if (i < line.size() && line[i] == '"') {
-        ++i;
-        while (true) {
-          if (i >= line.size()) {  // a line break inside quotes belongs to the field
-            Location opened = field.where;
-            if (!cursor_.next(line))
-              throw InputError(opened, "a quoted field that is never closed", "a closing '\"'");
-            field.text += '\n';
-            i = 0;
-            continue;
-          }
-          if (line[i] == '"') {
-            if (i + 1 < line.size() && line[i + 1] == '"') {
-              field.text += '"';
-              i += 2;
-              continue;
-            }
-            ++i;
-            break;
-          }
-          field.text += line[i++];
-        }
-        if (i < line.size() && line[i] != ',')
-          throw InputError(cursor_.here(static_cast<long>(i) + 1), std::string("'") + line[i] + "' after a closing quote",
-                           "',' or the end of the line");
-      } else {
-        std::size_t end = line.find(',', i);
-        if (end == std::string_view::npos) end = line.size();
-        std::string_view text = line.substr(i, end - i);
-        if (std::size_t quote = text.find('"'); quote != std::string_view::npos)
-          throw InputError(cursor_.here(static_cast<long>(i + quote) + 1), "a '\"' inside an unquoted field",
-                           "the whole field in quotes, with '\"\"' for each quote inside");
-        field.text = text;
-        i = end;
-      }
-      record.fields.push_back(std::move(field));
-      if (i >= line.size()) return true;
-      ++i;  // the comma
-    }
-  }
-
- private:
-  detail::LineCursor cursor_;
-};
-
 std::string quoted(const std::string& text) {
   return "'" + (text.size() > 40 ? text.substr(0, 40) + "...'" : text + "'");
 }
 
 // The label a (name, kind) line addresses; kind "row" also reaches the objective, an MPS row too.
-Label& label_for(Model& model, const Field& name, const Field& kind) {
+Label& label_for(Model& model, const CsvField& name, const CsvField& kind) {
   if (kind.text == "row") {
     if (auto i = model.find_row(name.text)) return model.rows[static_cast<std::size_t>(*i)].label;
     if (name.text == model.objective.name) return model.objective.label;
@@ -107,15 +37,15 @@ Label& label_for(Model& model, const Field& name, const Field& kind) {
 }  // namespace
 
 void apply_labels_text(Model& model, std::string_view text, const std::string& file) {
-  if (text.starts_with("\xEF\xBB\xBF")) text.remove_prefix(3);  // a byte-order mark, as spreadsheets write
-  CsvReader reader(text, file);
-  Record record;
-  if (!reader.next(record)) throw InputError({file, 1, 0}, "an empty file", "the header line name,kind,statement,unit,group,hard");
-  bool header_ok = record.fields.size() == header.size();
-  for (std::size_t k = 0; header_ok && k < header.size(); ++k) header_ok = record.fields[k].text == header[k];
-  if (!header_ok) throw InputError(record.where, "a first line that is not the header", "name,kind,statement,unit,group,hard");
+  std::vector<CsvRecord> records = read_csv(text, file);
+  if (records.empty()) throw InputError({file, 1, 0}, "an empty file", "the header line name,kind,statement,unit,group,hard");
+  const CsvRecord& first = records.front();
+  bool header_ok = first.fields.size() == header.size();
+  for (std::size_t k = 0; header_ok && k < header.size(); ++k) header_ok = first.fields[k].text == header[k];
+  if (!header_ok) throw InputError(first.where, "a first line that is not the header", "name,kind,statement,unit,group,hard");
   std::map<std::pair<std::string, std::string>, long> seen;  // (name, kind) -> line
-  while (reader.next(record)) {
+  for (std::size_t r = 1; r < records.size(); ++r) {
+    const CsvRecord& record = records[r];
     if (record.fields.size() != header.size())
       throw InputError(record.where, std::to_string(record.fields.size()) + " fields",
                        "6 fields: name,kind,statement,unit,group,hard");

@@ -1,8 +1,10 @@
 // MPS reader, fixed and free form (conventions and the detection rule: docs/mps.md).
-#include "input_file.hpp"
+#include "plumb/model/input_file.hpp"
 #include "parsers.hpp"
 
+#include <algorithm>
 #include <array>
+#include <cctype>
 #include <unordered_map>
 #include <unordered_set>
 
@@ -190,6 +192,7 @@ class Reader {
   void finish_columns();
 
   void read_objsense(const Token& word);
+  void note_sense_comment(std::string_view line);
   void read_rows_line(std::string_view line, const FreeTokens& tokens);
   void read_columns_line(std::string_view line, const FreeTokens& tokens);
   void read_marker(const FreeTokens& tokens);
@@ -240,6 +243,7 @@ Model Reader::read() {
   std::string_view line;
   bool any_content = false;
   while (cursor_.next(line)) {
+    if (!line.empty() && line.front() == '*' && section_ == Section::none) note_sense_comment(line);
     if (line.empty() || line.front() == '*') continue;
     if (trim(line).empty()) continue;
     any_content = true;
@@ -310,6 +314,31 @@ void Reader::read_objsense(const Token& word) {
   else
     fail(word.column, "objective sense " + quoted(word.text), "MIN, MAX, MINIMIZE or MAXIMIZE");
   sense_pending_ = false;
+}
+
+// A comment before NAME that states a sense: a full word (maximize, minimisation, ...) anywhere,
+// or MAX/MIN on a line that speaks of the sense or the objective ("*SENSE:Maximize", "* OBJSENSE
+// MAX", "* objective: max").  Only the first such line is kept.
+void Reader::note_sense_comment(std::string_view line) {
+  if (model_.source.sense_comment) return;
+  std::vector<std::string> words;
+  std::string word;
+  for (char c : line) {
+    if (std::isalnum(static_cast<unsigned char>(c))) word += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    else if (!word.empty()) words.push_back(std::move(word)), word.clear();
+  }
+  if (!word.empty()) words.push_back(std::move(word));
+  auto has = [&words](std::string_view w) { return std::find(words.begin(), words.end(), w) != words.end(); };
+  bool about_sense = has("sense") || has("objsense") || has("objective");
+  for (const std::string& w : words) {
+    bool max = w.starts_with("maximi") || (about_sense && (w == "max" || w == "maximum"));
+    bool min = w.starts_with("minimi") || (about_sense && (w == "min" || w == "minimum"));
+    if (!max && !min) continue;
+    std::string_view text = trim(line.substr(1));
+    if (text.size() > 60) text = text.substr(0, 60);
+    model_.source.sense_comment = SenseComment{cursor_.line_number(), max ? Sense::maximise : Sense::minimise, std::string(text)};
+    return;
+  }
 }
 
 void Reader::read_data_line(std::string_view line) {
@@ -747,6 +776,7 @@ Model Reader::build() {
   }
   model_.matrix = Matrix::from_entries(model_.row_count(), model_.column_count(), std::move(entries_));
   model_.source.format = layout_ == Layout::fixed || agrees_with_fixed_ ? "mps-fixed" : "mps-free";
+  if (section_line_[static_cast<int>(Section::objsense)] == 0) model_.source.sense_origin = SenseOrigin::mps_default;
   model_.index_names();
   return std::move(model_);
 }

@@ -1,5 +1,5 @@
 // Native model format reader: the grammar of docs/model-format.md, one statement at a time.
-#include "input_file.hpp"
+#include "plumb/model/input_file.hpp"
 #include "native_lexer.hpp"
 #include "parsers.hpp"
 

@@ -1,6 +1,6 @@
 #include "plumb/model/read.hpp"
 
-#include "input_file.hpp"
+#include "plumb/model/input_file.hpp"
 #include "parsers.hpp"
 #include "plumb/model/labels.hpp"
 
@@ -40,6 +40,27 @@ Model read_model(const std::string& path, const ReadOptions& options) {
     model.source.labels_path = labels;
   }
   return model;
+}
+
+void set_sense_by_option(Model& model, Sense sense) {
+  model.objective.sense = sense;
+  model.source.sense_origin = SenseOrigin::option;
+}
+
+std::optional<SenseCommentNote> sense_comment_note(const Source& source, Sense used) {
+  const auto& comment = source.sense_comment;
+  if (!comment) return std::nullopt;
+  auto verb = [](Sense sense) { return sense == Sense::minimise ? "minimised" : "maximised"; };
+  std::string why = source.sense_origin == SenseOrigin::mps_default
+                        ? "the MPS convention without an OBJSENSE section"
+                        : source.sense_origin == SenseOrigin::option ? "as --objective-sense says"
+                                                                     : "as the OBJSENSE section says";
+  std::string other = used == Sense::minimise ? "max" : "min";
+  bool warn = source.sense_origin == SenseOrigin::mps_default || comment->stated != used;
+  std::string text = "line " + std::to_string(comment->line) + " is a comment saying the objective is " + verb(comment->stated) +
+         " (\"" + comment->text + "\"); plumb reads it as " + verb(used) + ", " + why +
+         "; a comment never sets the sense" + (warn ? ": pass --objective-sense " + other + " if the comment is right" : "");
+  return SenseCommentNote{std::move(text), warn};
 }
 
 }  // namespace plumb::model

@@ -111,6 +111,7 @@ json health_json(const HealthReport& r) {
   for (const auto& f : r.findings)
     findings.push_back({{"severity", to_string(f.severity)}, {"code", f.code}, {"count", f.count}});
   out["findings"] = findings;
+  if (!r.sense_comment.empty()) out["sense_comment"] = r.sense_comment;
   out["caution"] = caution_line;
   return out;
 }

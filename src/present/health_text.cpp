@@ -47,6 +47,7 @@ std::string group_list(const std::vector<std::vector<std::string>>& groups) {
 std::string describe(const health::Finding& finding, const HealthReport& r) {
   const std::string& code = finding.code;
   std::size_t n = finding.count;
+  if (code == "sense-comment") return "objective sense: " + r.sense_comment;
   if (code == "crossed-rows")
     return count_of(n, "row has", "rows have") + " lower side above upper side: INFEASIBLE AS WRITTEN (" +
            name_list(r.crossed_rows, names_shown) + ")";

@@ -2,7 +2,7 @@
 // installs (run::stop_on_interrupt_signals).  Each signal is raised from inside the work at a known
 // point, so nothing depends on timing: from the reader's poll of a given line, and from the solve's
 // progress callback.  Constructed cases; the model is the invented summer blend of corpus/.
-#include "model/input_file.hpp"
+#include "plumb/model/input_file.hpp"
 #include "plumb/exact/solve.hpp"
 #include "plumb/model/read.hpp"
 #include "plumb/run/budget.hpp"

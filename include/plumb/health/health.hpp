@@ -131,6 +131,7 @@ struct HealthReport {
   std::vector<BigNumber> big_numbers;
 
   LabelCoverage labels;
+  std::string sense_comment;      // what a comment stating an objective sense says, and the sense used
   std::vector<Finding> findings;  // what deserves attention, worst first
 
   const Range& range(NumberKind kind) const { return ranges[static_cast<std::size_t>(kind)]; }

@@ -107,6 +107,21 @@ class Matrix {
   std::vector<std::size_t> row_position_;
 };
 
+// Where the objective sense came from.
+enum class SenseOrigin {
+  stated,       // an OBJSENSE section, or the native format's minimise/maximise
+  mps_default,  // an MPS file without OBJSENSE: minimise, as the format's convention has it
+  option,       // --objective-sense on the command line
+};
+
+// A comment line before NAME that states an objective sense, as some modelling layers write instead
+// of an OBJSENSE section.  Recorded to warn about; it never sets the sense by itself.
+struct SenseComment {
+  long line = 0;
+  Sense stated = Sense::maximise;
+  std::string text;
+};
+
 // Where the model came from: shown in every output and written into certificates.
 struct Source {
   std::string path;    // as the user gave it
@@ -114,6 +129,8 @@ struct Source {
   std::string format;  // "mps-fixed", "mps-free", "plumb", or "built" for models made in code
   ObjectiveConstantRule constant_rule = ObjectiveConstantRule::negated_rhs;
   std::string labels_path;  // the labels sidecar applied, if any
+  SenseOrigin sense_origin = SenseOrigin::stated;
+  std::optional<SenseComment> sense_comment;
 };
 
 struct Model {

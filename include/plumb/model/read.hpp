@@ -4,6 +4,7 @@
 
 #include "plumb/model/model.hpp"
 
+#include <optional>
 #include <string>
 #include <string_view>
 
@@ -23,5 +24,17 @@ Model read_model(const std::string& path, const ReadOptions& options = {});
 
 // Parses model text already in memory; `file` names it in messages.
 Model read_model_text(std::string_view text, const std::string& file, const ReadOptions& options = {});
+
+// Sets the objective sense as the user chose it (--objective-sense), recording that it came so.
+void set_sense_by_option(Model& model, Sense sense);
+
+// What to say about a comment stating an objective sense (nothing when there is none): what it
+// states, which sense plumb uses and why, and how to choose the other.  `warn` unless an explicit
+// statement (OBJSENSE, --objective-sense) agrees with the comment.
+struct SenseCommentNote {
+  std::string text;
+  bool warn = true;
+};
+std::optional<SenseCommentNote> sense_comment_note(const Source& source, Sense used);
 
 }  // namespace plumb::model

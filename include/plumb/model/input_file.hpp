@@ -1,4 +1,4 @@
-// Internal: loading a file's bytes (gz or plain), its fingerprint, and walking it line by line.
+// Loading a model-side file whole (gz or plain) with its fingerprint, and walking it line by line: shared by every reader of user files.
 #pragma once
 
 #include "plumb/model/error.hpp"

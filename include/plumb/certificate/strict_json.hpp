@@ -1,14 +1,38 @@
-// Internal: JSON parsing that refuses duplicate keys and deep nesting, and finds a value's line again.
+// Strict JSON: refuses duplicate keys and deep nesting, and finds a value's line again; shared by every JSON reader of user files.
 #pragma once
 
 #include "plumb/model/error.hpp"
 
 #include <nlohmann/json.hpp>
 
+#include <cstddef>
+#include <iterator>
 #include <string>
 #include <string_view>
 
 namespace plumb::certificate::detail {
+
+// A char iterator that reports how many bytes the parser has taken so far, so that a SAX handler
+// driven by nlohmann's parser knows where each token ends.
+struct CountingIterator {
+  using iterator_category = std::input_iterator_tag;
+  using value_type = char;
+  using difference_type = std::ptrdiff_t;
+  using pointer = const char*;
+  using reference = const char&;
+  const char* at;
+  std::size_t* consumed;
+  char operator*() const { return *at; }
+  CountingIterator& operator++() {
+    ++at;
+    ++*consumed;
+    return *this;
+  }
+  bool operator==(const CountingIterator& other) const { return at == other.at; }
+};
+
+// Line and column (from 1) of byte `index` of text.
+model::Location location_of(std::string_view text, const std::string& file, std::size_t index);
 
 // Parses text into an order-keeping document.  Throws model::InputError with line and column for
 // invalid JSON, a key given twice in one object, or nesting deeper than max_depth.

@@ -1,0 +1,116 @@
+// plumb audit's library part (include/plumb/audit/audit.hpp).
+#include "plumb/audit/audit.hpp"
+
+#include <algorithm>
+#include <chrono>
+
+namespace plumb::audit {
+namespace {
+
+using simplex::VarStatus;
+
+bool near(const Rational& value, const model::Side& side, const Rational& tolerance) {
+  return side && relative_to(abs(value - *side), *side) <= tolerance;
+}
+
+VarStatus resting_place(const Rational& value, const model::Side& lower, const model::Side& upper,
+                        const Rational& tolerance) {
+  if (near(value, lower, tolerance)) return VarStatus::at_lower;
+  if (near(value, upper, tolerance)) return VarStatus::at_upper;
+  if (!lower && !upper && value == 0) return VarStatus::at_zero;
+  return VarStatus::basic;
+}
+
+// The optimum from a start basis.  The one place to swap for exact::Session when it lands.
+exact::CertifiedSolution solve_from(const model::Model& model, const simplex::Basis& start, run::Budget* budget) {
+  exact::SolveOptions options;
+  options.budget = budget;
+  options.warm_start = &start;
+  return exact::certified_solve(model, options);
+}
+
+bool is_hard(const model::Model& model, const Violation& v) {
+  if (v.kind == Violation::Kind::row) return model.rows[static_cast<std::size_t>(v.index)].label.hard.value_or(false);
+  const model::Column& column = model.columns[static_cast<std::size_t>(v.index)];
+  const model::Label& label = v.side == Violation::Side::lower ? column.lower_label : column.upper_label;
+  return label.hard.value_or(false);
+}
+
+double seconds_since(std::chrono::steady_clock::time_point start) {
+  return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+}
+
+GapVerdict judge(const Gap& gap, const Rational& allowed) { return gap.relative <= allowed ? GapVerdict::within : GapVerdict::outside; }
+
+}  // namespace
+
+Gap gap_between(const model::Model& model, const Rational& plan_objective, const Rational& reference) {
+  Rational absolute = model.objective.sense == model::Sense::minimise ? Rational(plan_objective - reference)
+                                                                      : Rational(reference - plan_objective);
+  return {absolute, relative_to(absolute, reference)};
+}
+
+simplex::Basis guess_basis(const model::Model& model, const std::vector<Rational>& x, const Evaluation& evaluation,
+                           const Rational& tolerance) {
+  simplex::Basis basis;
+  basis.columns.reserve(model.columns.size());
+  for (std::size_t j = 0; j < model.columns.size(); ++j)
+    basis.columns.push_back(resting_place(x[j], model.columns[j].lower, model.columns[j].upper, tolerance));
+  basis.rows.reserve(model.rows.size());
+  for (std::size_t i = 0; i < model.rows.size(); ++i) {
+    VarStatus status = resting_place(evaluation.activity[i], model.rows[i].lower, model.rows[i].upper, tolerance);
+    basis.rows.push_back(status == VarStatus::at_zero ? VarStatus::basic : status);  // a free row stays basic
+  }
+  return basis;
+}
+
+Audit run_audit(const model::Model& model, const Values& plan, const AuditOptions& options) {
+  Audit audit;
+  audit.plan_missing = plan.missing;
+  auto clock = std::chrono::steady_clock::now();
+  audit.evaluation = evaluate(model, plan.values);
+  const auto& violations = audit.evaluation.violations;
+  if (!violations.empty())
+    audit.verdict = violations.front().relative <= options.tolerance ? Verdict::within_tolerance : Verdict::infeasible;
+  for (std::size_t k = 0; k < violations.size(); ++k)
+    if (is_hard(model, violations[k])) audit.hard_crossed.push_back(k);
+  bool feasible = audit.verdict == Verdict::feasible;
+  audit.evaluate_seconds = seconds_since(clock);
+
+  if (options.duals) {
+    clock = std::chrono::steady_clock::now();
+    audit.dual_bound = safe_dual_bound(model, *options.duals);
+    if (audit.dual_bound->bound) audit.gap_to_bound = gap_between(model, audit.evaluation.objective, *audit.dual_bound->bound);
+    audit.bound_seconds = seconds_since(clock);
+  }
+  if (options.gap) {
+    audit.gap_verdict = GapVerdict::unknown;
+    // The bound over-estimates the gap: it can prove a plan within G, never outside it.
+    if (feasible && audit.gap_to_bound && judge(*audit.gap_to_bound, *options.gap) == GapVerdict::within)
+      audit.gap_verdict = GapVerdict::within;
+  }
+  bool settled = audit.gap_verdict == GapVerdict::within;
+  if (options.solve_optimum && !settled) {
+    audit.start_basis = guess_basis(model, plan.values, audit.evaluation, options.tolerance);
+    audit.start_basics = static_cast<int>(std::count(audit.start_basis.columns.begin(), audit.start_basis.columns.end(), VarStatus::basic) +
+                                          std::count(audit.start_basis.rows.begin(), audit.start_basis.rows.end(), VarStatus::basic));
+    clock = std::chrono::steady_clock::now();
+    audit.optimum = solve_from(model, audit.start_basis, options.budget);
+    audit.optimum_seconds = seconds_since(clock);
+    const exact::Solution& s = audit.optimum->solution;
+    if (audit.optimum->certified() && s.outcome == exact::Outcome::optimal) {
+      audit.gap_to_optimum = gap_between(model, audit.evaluation.objective, s.objective);
+      if (options.gap && feasible) audit.gap_verdict = judge(*audit.gap_to_optimum, *options.gap);
+      for (std::size_t j = 0; j < s.x.size(); ++j)
+        if (s.x[j] != plan.values[j]) audit.changes.push_back({static_cast<int>(j), plan.values[j], s.x[j]});
+      std::stable_sort(audit.changes.begin(), audit.changes.end(), [](const Change& a, const Change& b) {
+        return abs(a.to - a.from) > abs(b.to - b.from);
+      });
+    } else if (audit.optimum->certified() && s.outcome == exact::Outcome::unbounded && options.gap && feasible) {
+      audit.gap_verdict = GapVerdict::outside;  // every plan is infinitely far from the best
+    }
+  }
+  return audit;
+}
+
+}  // namespace plumb::audit
