@@ -2,12 +2,15 @@
 // fallback; then the certificate and its independent check.
 #include "plumb/exact/solve.hpp"
 
+#include "auxiliary.hpp"
 #include "engine.hpp"
 #include "plumb/certificate/basis.hpp"
 #include "plumb/simplex/float_simplex.hpp"
 
+#include <algorithm>
 #include <chrono>
 #include <limits>
+#include <optional>
 
 namespace plumb::exact {
 namespace {
@@ -16,7 +19,10 @@ double seconds_since(std::chrono::steady_clock::time_point start) {
   return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
 }
 
-// The float search's progress, reported as the solve's.
+}  // namespace
+
+namespace detail {
+
 std::function<void(const simplex::FloatProgress&)> float_progress(const SolveOptions& options, const std::string& prefix) {
   if (!options.progress) return {};
   auto clock = std::chrono::steady_clock::now();
@@ -34,9 +40,7 @@ std::function<void(const simplex::FloatProgress&)> float_progress(const SolveOpt
 // start; exact pivots on long fractions can cost seconds each.
 constexpr int correction_rounds = 4;
 
-// Certifies `basis` by refinement, correcting it by float re-solves as needed; `basis` ends as
-// the last one tried.  True when certified.
-bool certify_with_corrections(detail::Engine& engine, const model::Model& model, const SolveOptions& options,
+bool certify_with_corrections(Engine& engine, const model::Model& model, const SolveOptions& options,
                               simplex::Basis& basis, SolveStats& stats) {
   for (int round = 0;; ++round) {
     simplex::CorrectionProblem correction;
@@ -55,21 +59,36 @@ bool certify_with_corrections(detail::Engine& engine, const model::Model& model,
   }
 }
 
+}  // namespace detail
+
+namespace {
+
 // The exact engine's part of run_exact.
 Solution engine_solution(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
                          const simplex::FloatResult* found) {
+  SolveStats correction_stats;
+  std::optional<Solution> proven;
+  if (found && found->status == simplex::FloatStatus::infeasible)
+    proven = detail::prove_infeasible(model, options, *start, correction_stats);
+  else if (found && found->status == simplex::FloatStatus::unbounded)
+    proven = detail::prove_unbounded(model, options, *start, correction_stats);
+  if (proven) return std::move(*proven);
+
   detail::Engine engine(model, options.budget, &options.progress);
   bool repaired = false;
-  SolveStats correction_stats;
+  const char* proof = "rational basis";  // start_from's exact LU, then no pivot
   if (!start) {
     engine.start_from_logicals();
   } else if (found && found->status != simplex::FloatStatus::optimal) {
     repaired = engine.start_from(*start);
-    if (found->status == simplex::FloatStatus::infeasible) engine.certify_infeasible_row(found->ray_variable);
-    else if (found->status == simplex::FloatStatus::unbounded) engine.certify_ray(found->ray_variable);
+    if (found->status == simplex::FloatStatus::infeasible && engine.certify_infeasible_row(found->ray_variable))
+      proof = "row of the inverse";
+    else if (found->status == simplex::FloatStatus::unbounded && engine.certify_ray(found->ray_variable))
+      proof = "edge of the basis";
   } else {
     simplex::Basis basis = *start;
-    if (!certify_with_corrections(engine, model, options, basis, correction_stats)) repaired = engine.start_from(basis);
+    if (detail::certify_with_corrections(engine, model, options, basis, correction_stats)) proof = "refined basis";
+    else repaired = engine.start_from(basis);
   }
   detail::EngineResult result = engine.run();
 
@@ -83,6 +102,7 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
   solution.stats = correction_stats;
   solution.stats.exact_iterations = result.iterations;
   solution.stats.phase = result.phase;
+  solution.stats.proof = !start || result.iterations > 0 ? "exact pivots" : proof;
   solution.stats.repaired = start && (repaired || result.iterations > 0 || correction_stats.correction_rounds > 0);
   if (solution.outcome == Outcome::optimal) solution.objective = model.objective_value(solution.x);
   return solution;
@@ -117,6 +137,14 @@ certificate::NamedValues named_nonzeros(const std::vector<Rational>& values, aut
   return named;
 }
 
+// Makes a result wrong in a way the checker must see: an objective one off, or a Farkas vector
+// or ray of zeros.
+void spoil(Solution& solution) {
+  solution.objective += 1;
+  for (auto* values : {&solution.y, &solution.ray})
+    if (solution.outcome != Outcome::optimal) std::fill(values->begin(), values->end(), Rational(0));
+}
+
 }  // namespace
 
 Solution solve(const model::Model& model, const SolveOptions& options) {
@@ -126,8 +154,12 @@ Solution solve(const model::Model& model, const SolveOptions& options) {
   auto clock = std::chrono::steady_clock::now();
   simplex::FloatOptions search;
   search.budget = options.budget;
-  search.progress = float_progress(options, "float ");
+  search.progress = detail::float_progress(options, "float ");
   simplex::FloatResult found = simplex::solve_float(model, search);
+  if (options.fault == Fault::float_search_fails) {
+    found.status = simplex::FloatStatus::failed;
+    found.note = "failure injected";
+  }
   double float_seconds = seconds_since(clock);
   Solution solution;
   if (found.status == simplex::FloatStatus::stopped) {
@@ -183,6 +215,7 @@ CertifiedSolution certified_solve(const model::Model& model, const SolveOptions&
       result.verdict = {false, "", "stopped before a result: " + run::describe(result.solution.stop_reason)};
       return result;
     }
+    if (attempt == 0 && options.fault == Fault::result_corrupted) spoil(result.solution);
     result.certificate = make_certificate(model, result.solution);
     result.verdict = check::verify(model, result.certificate);
     if (result.verdict.valid) return result;

@@ -78,6 +78,8 @@ nlohmann::ordered_json solve_json(const model::Model& model, const exact::Certif
                   {"correction_iterations", stats.correction_iterations},
                   {"repaired", stats.repaired},
                   {"fell_back", stats.fell_back},
+                  {"auxiliary_iterations", stats.auxiliary_iterations},
+                  {"proof", stats.proof},
                   {"peak_memory_mib", std::round(figures.peak_memory_mib * 10) / 10}};
   if (!stats.float_note.empty()) out["stats"]["float_note"] = stats.float_note;
   out["caution"] = caution_line;

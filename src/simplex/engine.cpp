@@ -663,10 +663,11 @@ FloatStatus Engine::solve() {
         compute_primal();
         if (count_dual_infeasible(false) > 0) {
           end = dual_phase_one();
-          if (end == LoopEnd::optimal && remove_dual_infeasibilities(shift_limit) > shift_limit) {
-            note_ = "dual infeasible after dual phase 1";
-            return FloatStatus::unbounded;
-          }
+          // No dual feasible basis exists: the model is unbounded unless it is infeasible.  With
+          // every dual infeasibility shifted away the dual simplex finds a feasible basis (or a
+          // dual ray); back on the model's costs, the primal loop then names the ray's edge.
+          if (end == LoopEnd::optimal && remove_dual_infeasibilities(shift_limit) > shift_limit)
+            remove_dual_infeasibilities(inf_);
         } else {
           end = LoopEnd::optimal;
         }

@@ -42,16 +42,31 @@ EXIT_WORDS = {0: "optimal", 10: "infeasible", 11: "unbounded", 3: "stopped", 1: 
 KILL_GRACE_SECONDS = 60
 
 
-def parse_arguments():
-    parser = argparse.ArgumentParser(description=__doc__.split("\n\n")[0])
-    parser.add_argument("shared", nargs="?", default=str(REPO.parent / "shared"),
-                        help="shared data folder holding netlib/, or the netlib folder (default ../shared)")
+def argument_parser(description, folder_help, time_limit):
+    """The options both Netlib benchmarks take."""
+    parser = argparse.ArgumentParser(description=description)
+    parser.add_argument("shared", nargs="?", default=str(REPO.parent / "shared"), help=folder_help)
     parser.add_argument("--plumb", default=str(REPO / "build" / "plumb"), help="the plumb binary (default build/plumb)")
-    parser.add_argument("--time-limit", type=float, default=60, help="seconds per instance (default 60)")
+    parser.add_argument("--time-limit", type=float, default=time_limit,
+                        help=f"seconds per instance (default {time_limit:g})")
     parser.add_argument("--only", default="", help="comma-separated instance names (default: all)")
     parser.add_argument("--output", default=str(REPO / "docs" / "benchmarks.md"),
                         help="markdown file to update (default docs/benchmarks.md); '-' prints the section")
-    return parser.parse_args()
+    return parser
+
+
+def parse_arguments():
+    return argument_parser(__doc__.split("\n\n")[0],
+                           "shared data folder holding netlib/, or the netlib folder (default ../shared)", 60).parse_args()
+
+
+def selected_models(folder, only):
+    """The folder's models, sorted, or those named in `only` (comma-separated)."""
+    models = sorted(folder.glob("*.mps.gz"))
+    if only:
+        wanted = set(only.split(","))
+        models = [m for m in models if m.name[: -len(".mps.gz")] in wanted]
+    return models
 
 
 def netlib_folder(shared):
@@ -248,15 +263,16 @@ def section(results, optima, exact, time_limit, started, revision, load_before, 
     return "\n".join(lines)
 
 
-def write_section(output, text):
+def write_section(output, text, begin=BEGIN, end=END):
+    """Puts text (which starts with `begin` and ends with `end`) in place of the marked section."""
     if output == "-":
         print(text)
         return
     path = Path(output)
     document = path.read_text() if path.exists() else "# Benchmarks\n"
-    if BEGIN in document and END in document:
-        head, rest = document.split(BEGIN, 1)
-        document = head + text + rest.split(END, 1)[1]
+    if begin in document and end in document:
+        head, rest = document.split(begin, 1)
+        document = head + text + rest.split(end, 1)[1]
     else:  # after the title and first paragraph
         parts = document.split("\n\n", 2)
         document = "\n\n".join(parts[:2] + [text] + parts[2:])
@@ -271,10 +287,7 @@ def main():
     folder = netlib_folder(options.shared)
     optima = published_optima(folder)
     exact = exact_optima(folder)
-    models = sorted(folder.glob("*.mps.gz"))
-    if options.only:
-        wanted = set(options.only.split(","))
-        models = [m for m in models if m.name[: -len(".mps.gz")] in wanted]
+    models = selected_models(folder, options.only)
     started = datetime.datetime.now(datetime.timezone.utc)
     revision = git_revision()  # of the tree as the run starts
     load_before = os.getloadavg()[0]

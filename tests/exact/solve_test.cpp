@@ -223,6 +223,8 @@ TEST(ExactSolve, InfeasibleAgainstBound) {
                      .build();
     Solution s = solve_exactly(model);
     EXPECT_EQ(s.outcome, Outcome::infeasible) << cost;
+    // With cost 1 the dual simplex proves it (its dual ray); with -1 primal phase 1 does.
+    EXPECT_EQ(s.stats.phase, cost > 0 ? "exact dual" : "exact primal phase 1") << cost;
   }
 }
 
@@ -259,6 +261,23 @@ TEST(ExactSolve, WarmStartFromOptimalBasis) {
   EXPECT_EQ(s.objective, 13);
   EXPECT_EQ(s.stats.exact_iterations, 0);
   EXPECT_FALSE(s.stats.repaired);
+  EXPECT_EQ(s.stats.proof, "refined basis");  // float LU and refinement, no rational LU
+}
+
+// From the logical basis of Chvatal's example, feasible but not optimal: refinement finds wrong
+// reduced-cost signs, one float re-solve of the correction problem reaches the optimal basis, and
+// that is certified by refinement with no exact pivot.
+TEST(ExactSolve, WarmStartIsCorrectedByAFloatReSolve) {
+  auto model = chvatal_chapter2();
+  simplex::Basis logical{{VarStatus::at_lower, VarStatus::at_lower, VarStatus::at_lower},
+                         {VarStatus::basic, VarStatus::basic, VarStatus::basic}};
+  Solution s = solve_exactly(model, &logical);
+  ASSERT_EQ(s.outcome, Outcome::optimal);
+  EXPECT_EQ(s.objective, 13);  // Chvatal 1983, ch. 2
+  EXPECT_EQ(s.stats.correction_rounds, 1);
+  EXPECT_EQ(s.stats.exact_iterations, 0);
+  EXPECT_EQ(s.stats.proof, "refined basis");
+  EXPECT_TRUE(s.stats.repaired);
 }
 
 TEST(ExactSolve, WarmStartRepairsWrongBases) {
@@ -298,8 +317,8 @@ TEST(ExactSolve, WarmStartRepairsSingularBasis) {
   EXPECT_TRUE(s.stats.repaired);
 }
 
-// The hybrid path on the invented infeasible and unbounded models above: the float search's final
-// basis and its hint prove the outcome (the checker accepts the certificate either way).
+// The hybrid path on the invented infeasible and unbounded models above: the least-infeasibility
+// LP, and the feasible-point and ray LPs, certified by refinement (docs/solving.md).
 TEST(ExactSolve, HybridCertifiesInfeasibleAndUnboundedOutcomes) {
   auto unbounded = unbounded_model();
   auto infeasible = infeasible_rows_model();
@@ -307,20 +326,69 @@ TEST(ExactSolve, HybridCertifiesInfeasibleAndUnboundedOutcomes) {
     CertifiedSolution result = certified_solve(*model);
     EXPECT_TRUE(result.certified()) << result.verdict.failure;
     EXPECT_TRUE(result.rejections.empty());
-    EXPECT_EQ(result.solution.outcome, model == &unbounded ? Outcome::unbounded : Outcome::infeasible);
-    EXPECT_EQ(result.solution.stats.exact_iterations, 0) << model->source.path;
+    const bool is_unbounded = model == &unbounded;
+    EXPECT_EQ(result.solution.outcome, is_unbounded ? Outcome::unbounded : Outcome::infeasible);
+    EXPECT_EQ(result.solution.stats.exact_iterations, 0) << model->title;
+    EXPECT_EQ(result.solution.stats.proof, is_unbounded ? "feasible point and ray" : "least infeasibility");
   }
+  // By hand: the rows say x + y <= 1 and x + y >= 3; the least infeasibility is 2 and the
+  // multipliers -1 on cap and 1 on need sum them to 0 >= 2.
+  CertifiedSolution result = certified_solve(infeasible);
+  EXPECT_EQ(result.solution.y, (std::vector<Rational>{-1, 1}));
 }
 
+// Invented: min -x - y with x - y <= 1 has no dual feasible basis, and z in [0, 1] must reach 2,
+// so it is infeasible too.  The float search, after its dual phase 1 finds no dual feasible
+// basis, must still find the infeasibility, and the least-infeasibility LP proves it.
+TEST(ExactSolve, InfeasibleWithoutADualFeasibleBasis) {
+  auto model = ModelBuilder("both")
+                   .column("x", -1)
+                   .column("y", -1)
+                   .column("z", 0, q(0), q(1))
+                   .row("cap", Terms{{"x", 1}, {"y", -1}}, {}, q(1))
+                   .row("need", Terms{{"z", 1}}, q(2), {})
+                   .build();
+  CertifiedSolution result = certified_solve(model);
+  EXPECT_TRUE(result.certified()) << result.verdict.failure;
+  EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
+  EXPECT_EQ(result.solution.stats.proof, "least infeasibility");
+}
+
+// An injected float failure sends the solve to the exact engine from the logical basis.
 TEST(ExactSolve, HybridFallsBackWhenTheFloatSearchFails) {
   auto model = chvatal_chapter2();
-  CertifiedSolution result = certified_solve(model);
+  SolveOptions options;
+  options.fault = Fault::float_search_fails;
+  CertifiedSolution result = certified_solve(model, options);
   EXPECT_TRUE(result.certified()) << result.verdict.failure;
   const Solution& s = result.solution;
   ASSERT_EQ(s.outcome, Outcome::optimal);
-  EXPECT_EQ(s.objective, 13);
-  if (s.stats.fell_back) {
-    EXPECT_FALSE(s.stats.float_note.empty());
+  EXPECT_EQ(s.objective, 13);  // Chvatal 1983, ch. 2
+  EXPECT_TRUE(s.stats.fell_back);
+  EXPECT_EQ(s.stats.float_note, "failure injected");
+  EXPECT_EQ(s.stats.proof, "exact pivots");
+  EXPECT_GT(s.stats.exact_iterations, 0);
+}
+
+// An injected spoiled result: the checker rejects it, the rejection is kept, and the pure exact
+// engine's result (no float search) is certified instead, for each outcome.
+TEST(ExactSolve, CheckerRejectionSendsTheSolveToThePureEngine) {
+  auto optimal = chvatal_chapter2();
+  auto unbounded = unbounded_model();
+  auto infeasible = infeasible_rows_model();
+  const std::pair<const model::Model*, Outcome> cases[] = {
+      {&optimal, Outcome::optimal}, {&unbounded, Outcome::unbounded}, {&infeasible, Outcome::infeasible}};
+  for (const auto& [model, outcome] : cases) {
+    SolveOptions options;
+    options.fault = Fault::result_corrupted;
+    CertifiedSolution result = certified_solve(*model, options);
+    EXPECT_TRUE(result.certified()) << result.verdict.failure;
+    EXPECT_EQ(result.solution.outcome, outcome);
+    ASSERT_EQ(result.rejections.size(), 1u) << model->title;
+    EXPECT_NE(result.rejections[0].find("the checker rejected the solve path's"), std::string::npos)
+        << result.rejections[0];
+    EXPECT_EQ(result.solution.stats.float_iterations, 0) << model->title;  // the pure engine ran
+    EXPECT_EQ(result.solution.stats.proof, "exact pivots") << model->title;
   }
 }
 

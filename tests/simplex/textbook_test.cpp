@@ -87,6 +87,33 @@ TEST(FloatSimplexTextbook, InfeasibleAndUnbounded) {
   EXPECT_EQ(solve_float(unbounded).status, FloatStatus::unbounded);
 }
 
+// Invented: min -x1 - x2 with x1 - x2 <= 1 has no dual feasible basis, so the dual phase 1 ends
+// without one; the search must still name the edge of the ray (x1 = x2 + 1 grows without end),
+// from a feasible basis, for the exact side to prove.
+TEST(FloatSimplexTextbook, UnboundedAfterDualPhaseOneNamesTheRay) {
+  auto model = ModelBuilder("no-dual-feasible-basis")
+                   .column("x1", -1)
+                   .column("x2", -1)
+                   .row("r", {{"x1", 1}, {"x2", -1}}, {}, Rational(1))
+                   .build();
+  auto result = solve_float(model);
+  ASSERT_EQ(result.status, FloatStatus::unbounded) << result.note;
+  ASSERT_GE(result.ray_variable, 0) << result.note;
+  ASSERT_LT(result.ray_variable, 3);
+  const int k = result.ray_variable;
+  EXPECT_NE(k < 2 ? result.basis.columns[k] : result.basis.rows[0], VarStatus::basic);  // it enters
+  // Add z in [0, 1] that must reach 2: infeasible too, which the search must say rather than
+  // unbounded.
+  auto both = ModelBuilder("infeasible-and-no-dual-feasible-basis")
+                  .column("x1", -1)
+                  .column("x2", -1)
+                  .column("z", 0, Rational(0), Rational(1))
+                  .row("r", {{"x1", 1}, {"x2", -1}}, {}, Rational(1))
+                  .row("need", {{"z", 1}}, Rational(2), {})
+                  .build();
+  EXPECT_EQ(solve_float(both).status, FloatStatus::infeasible);
+}
+
 // Free columns, a ranged row and an equation (worked by hand): min x - y with y free,
 // 1 <= x + y <= 4 and x - y = -2, x in [0, 10]; y = x + 2 so x + y = 2x + 2 in [1, 4] gives
 // x in [0, 1]; x - y = -2 always, so every feasible point has objective -2.

@@ -31,11 +31,21 @@ struct Progress {
   double elapsed_seconds = 0;
 };
 
+// Faults injected on purpose, so that tests can drive the branches a sound run rarely takes
+// (docs/solving.md).  Never set outside tests.
+enum class Fault {
+  none,
+  float_search_fails,  // the float search reports failure: the exact engine solves from scratch
+  result_corrupted,    // the solve path's result is spoiled before the check: the checker rejects
+                       // it and the pure exact engine solves again
+};
+
 struct SolveOptions {
   Method method = Method::hybrid;
   run::Budget* budget = nullptr;                 // no limits when null
   const simplex::Basis* warm_start = nullptr;    // start from this basis when given
   std::function<void(const Progress&)> progress;  // called now and then when set
+  Fault fault = Fault::none;
 };
 
 struct SolveStats {
@@ -46,10 +56,14 @@ struct SolveStats {
   long exact_iterations = 0;
   int correction_rounds = 0;       // float re-solves of a correction problem before certification
   long correction_iterations = 0;  // their float iterations
+  long auxiliary_iterations = 0;   // float iterations on the least-infeasibility, feasible-point and ray LPs
   bool repaired = false;       // the starting basis was not optimal exactly: corrected or pivoted
   bool fell_back = false;      // the float phase failed and the exact engine solved from scratch
   std::string float_note;      // why the float phase failed, when it did
   std::string phase;           // the exact phase last run (how far a stopped solve got)
+  // How the outcome was proven (docs/solving.md): "refined basis", "least infeasibility",
+  // "feasible point and ray", "row of the inverse", "edge of the basis" or "exact pivots".
+  std::string proof;
 };
 
 // Values are in the minimisation form of docs/certificates.md (c' = c, or -c when maximising).
