@@ -4,6 +4,7 @@
 
 #include "auxiliary.hpp"
 #include "engine.hpp"
+#include "solve_path.hpp"
 #include "plumb/certificate/basis.hpp"
 #include "plumb/simplex/float_simplex.hpp"
 
@@ -147,13 +148,16 @@ void spoil(Solution& solution) {
 
 }  // namespace
 
-Solution solve(const model::Model& model, const SolveOptions& options) {
+Solution solve(const model::Model& model, const SolveOptions& options) { return detail::solve_from(model, options, nullptr); }
+
+Solution detail::solve_from(const model::Model& model, const SolveOptions& options, const simplex::Basis* float_start) {
   if (options.warm_start) return run_exact(model, options, options.warm_start);
   if (options.method == Method::exact) return run_exact(model, options, nullptr);
 
   auto clock = std::chrono::steady_clock::now();
   simplex::FloatOptions search;
   search.budget = options.budget;
+  search.warm_start = float_start;
   search.progress = detail::float_progress(options, "float ");
   simplex::FloatResult found = simplex::solve_float(model, search);
   if (options.fault == Fault::float_search_fails) {
@@ -206,9 +210,10 @@ certificate::Certificate make_certificate(const model::Model& model, const Solut
   return proof;
 }
 
-CertifiedSolution certified_solve(const model::Model& model, const SolveOptions& options) {
+CertifiedSolution detail::verified_solve(const model::Model& model, const SolveOptions& options,
+                                         const simplex::Basis* float_start) {
   CertifiedSolution result;
-  result.solution = solve(model, options);
+  result.solution = solve_from(model, options, float_start);
   for (int attempt = 0;; ++attempt) {
     if (result.solution.outcome == Outcome::stopped) {
       result.certificate = {};

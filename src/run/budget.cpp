@@ -13,6 +13,7 @@ std::string describe(StopReason reason) {
     case StopReason::time_limit: return "time limit reached";
     case StopReason::memory_limit: return "memory limit reached";
     case StopReason::interrupted: return "interrupted";
+    case StopReason::abandoned: return "abandoned by the caller";
   }
   return "stopped";
 }
@@ -41,6 +42,7 @@ double Budget::elapsed_seconds() const {
 bool Budget::exhausted() {
   if (reason_ != StopReason::none) return true;
   if (interrupt_flag().load(std::memory_order_relaxed)) reason_ = StopReason::interrupted;
+  else if (abandoned_.load(std::memory_order_relaxed)) reason_ = StopReason::abandoned;
   else if (time_limit_seconds_ && elapsed_seconds() > *time_limit_seconds_) reason_ = StopReason::time_limit;
   else if (memory_limit_mib_ && (calls_++ % 64) == 0 && resident_mib() > *memory_limit_mib_)
     reason_ = StopReason::memory_limit;

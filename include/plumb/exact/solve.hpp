@@ -99,7 +99,7 @@ struct CertifiedSolution {
 
 // The one path every command uses: solve, build the certificate, verify it independently, and
 // fall back to the pure exact engine when verification fails.  Never yields an unverified result
-// as certified.
+// as certified.  A session of one solve (session.hpp).
 CertifiedSolution certified_solve(const model::Model& model, const SolveOptions& options = {});
 
 }  // namespace plumb::exact

@@ -10,7 +10,7 @@
 namespace plumb::run {
 
 // Why work stopped before it finished.
-enum class StopReason { none, time_limit, memory_limit, interrupted };
+enum class StopReason { none, time_limit, memory_limit, interrupted, abandoned };
 std::string describe(StopReason reason);
 
 // Set from a signal handler (SIGINT, SIGTERM); every Budget sees it.
@@ -28,6 +28,9 @@ class Budget {
   // Cheap enough to call every iteration: reads the clock, memory is sampled every 64th call.
   bool exhausted();
   StopReason reason() const { return reason_; }
+  // Makes the next poll report StopReason::abandoned: safe from another thread, for a caller that
+  // gives up one piece of work (a sub-solve of a session) and carries on with the rest.
+  void abandon() { abandoned_.store(true, std::memory_order_relaxed); }
   double elapsed_seconds() const;
 
  private:
@@ -36,6 +39,7 @@ class Budget {
   std::optional<std::size_t> memory_limit_mib_;
   unsigned calls_ = 0;
   StopReason reason_ = StopReason::none;
+  std::atomic<bool> abandoned_{false};
 };
 
 // Resident memory of this process in MiB (from /proc/self/statm), 0 when unknown.

@@ -1,0 +1,245 @@
+// The solve session: every edit, restore and goal switch compared with solving the edited model
+// from scratch exactly (the pure exact engine, a path that shares no state with the session), each
+// certificate checked against the edited model by the independent checker.
+#include "plumb/exact/session.hpp"
+#include "plumb/check/check.hpp"
+#include "plumb/model/read.hpp"
+#include "shared_data.hpp"
+
+#include <gtest/gtest.h>
+
+#include <functional>
+
+namespace plumb::exact {
+namespace {
+
+using model::ModelBuilder;
+using model::Side;
+using numeric::Rational;
+using Terms = std::vector<std::pair<std::string, Rational>>;
+
+Rational q(long p, long d = 1) { return Rational(p, d); }
+
+// Invented for these tests: a village bakery plans a day's loaves (rye, wheat, spelt) under oven
+// hours, flour and a delivery promise; the file hash is made up so identity checks can bite.
+model::Model bakery() {
+  auto model = ModelBuilder("bakery-day")
+                   .maximise()
+                   .column("rye", 3, q(0), q(40))
+                   .column("wheat", 2, q(0))
+                   .column("spelt", 4, q(0), q(10))
+                   .row("oven", Terms{{"rye", q(1, 2)}, {"wheat", q(1, 4)}, {"spelt", 1}}, {}, q(20))
+                   .row("flour", Terms{{"rye", 1}, {"wheat", 1}, {"spelt", q(3, 2)}}, {}, q(50))
+                   .row("promise", Terms{{"wheat", 1}, {"spelt", 1}}, q(12), {})
+                   .build();
+  model.source.path = "bakery.plumb";
+  model.source.sha256 = std::string(64, 'b');
+  return model;
+}
+
+// The outcome and objective of the pure exact engine on `model`, solved from scratch.
+Solution fresh(const model::Model& model) {
+  SolveOptions options;
+  options.method = Method::exact;
+  CertifiedSolution result = certified_solve(model, options);
+  EXPECT_TRUE(result.certified()) << result.verdict.failure;
+  return result.solution;
+}
+
+// Solves the session and compares with `expected`, the edited model built by the test itself.
+CertifiedSolution expect_as_fresh(Session& session, const model::Model& expected) {
+  CertifiedSolution result = session.solve();
+  EXPECT_TRUE(result.certified()) << result.verdict.failure;
+  EXPECT_TRUE(result.rejections.empty());
+  check::Verdict against_edited = check::verify(expected, result.certificate);
+  EXPECT_TRUE(against_edited.valid) << against_edited.failure;
+  Solution reference = fresh(expected);
+  EXPECT_EQ(result.solution.outcome, reference.outcome);
+  if (reference.outcome == Outcome::optimal) EXPECT_EQ(result.solution.objective, reference.objective);
+  EXPECT_TRUE(session.current().same_content(expected));
+  return result;
+}
+
+TEST(ExactSession, UneditedSolveIsTheFilesOwn) {
+  auto model = bakery();
+  Session session(model);
+  EXPECT_FALSE(session.edited());
+  CertifiedSolution result = expect_as_fresh(session, model);
+  ASSERT_EQ(result.solution.outcome, Outcome::optimal);
+  EXPECT_EQ(result.certificate.model.sha256, model.source.sha256);
+  EXPECT_FALSE(result.certificate.extra.contains("changes"));
+  // Worked by hand (vertex enumeration): oven and flour tight, spelt 0, rye 30, wheat 20,
+  // 3*30 + 2*20 = 130.
+  EXPECT_EQ(result.solution.objective, 130);
+}
+
+TEST(ExactSession, RowEditsAndRestoresMatchFreshSolves) {
+  auto model = bakery();
+  Session session(model);
+  expect_as_fresh(session, model);
+
+  auto edited = model;
+  edited.source.sha256.clear();
+  session.set_row_upper(1, q(30));  // less flour
+  edited.rows[1].upper = q(30);
+  CertifiedSolution tighter = expect_as_fresh(session, edited);
+  EXPECT_TRUE(session.edited());
+  EXPECT_TRUE(tighter.certificate.model.sha256.empty());
+  // Never the file's certificate: the checker refuses it for the file as given.
+  EXPECT_FALSE(check::verify(model, tighter.certificate).valid);
+  ASSERT_TRUE(tighter.certificate.extra.contains("changes"));
+  EXPECT_EQ(tighter.certificate.extra["changes"].dump(), R"([{"row":"flour","lower":null,"upper":"30"}])");
+
+  session.set_row_upper(0, std::nullopt);  // the oven row relaxed to free
+  edited.rows[0].upper.reset();
+  expect_as_fresh(session, edited);
+
+  session.set_row_lower(2, q(45));  // a promise beyond the flour: infeasible
+  edited.rows[2].lower = q(45);
+  CertifiedSolution infeasible = expect_as_fresh(session, edited);
+  EXPECT_EQ(infeasible.solution.outcome, Outcome::infeasible);
+
+  session.restore_row(2);
+  edited.rows[2] = model.rows[2];
+  expect_as_fresh(session, edited);
+
+  session.restore_row(0);
+  session.restore_row(1);
+  EXPECT_FALSE(session.edited());
+  CertifiedSolution back = expect_as_fresh(session, model);
+  EXPECT_EQ(back.certificate.model.sha256, model.source.sha256);
+  EXPECT_FALSE(back.certificate.extra.contains("changes"));
+}
+
+TEST(ExactSession, ColumnEditsAndRestoresMatchFreshSolves) {
+  auto model = bakery();
+  Session session(model);
+  auto edited = model;
+  edited.source.sha256.clear();
+
+  session.set_column_upper(2, std::nullopt);  // spelt unlimited
+  edited.columns[2].upper.reset();
+  expect_as_fresh(session, edited);
+
+  session.set_column_lower(0, q(35));  // at least 35 rye: the oven cannot also bake the promise
+  edited.columns[0].lower = q(35);
+  EXPECT_EQ(expect_as_fresh(session, edited).solution.outcome, Outcome::infeasible);
+
+  // Rye free below, oven and flour rows free: wheat grows without end.
+  session.set_column_lower(0, std::nullopt);
+  edited.columns[0].lower.reset();
+  session.set_row_upper(1, std::nullopt);
+  edited.rows[1].upper.reset();
+  session.set_row_upper(0, std::nullopt);
+  edited.rows[0].upper.reset();
+  EXPECT_EQ(expect_as_fresh(session, edited).solution.outcome, Outcome::unbounded);
+
+  session.restore_all();
+  EXPECT_FALSE(session.edited());
+  expect_as_fresh(session, model);
+}
+
+TEST(ExactSession, SettingTheOriginalValueIsNoEdit) {
+  auto model = bakery();
+  Session session(model);
+  session.set_row_upper(0, q(7));
+  session.set_row_upper(0, q(20));
+  EXPECT_FALSE(session.edited());
+  EXPECT_EQ(&session.current(), &model);
+}
+
+TEST(ExactSession, GoalSwitchesBetweenObjectiveAndFeasibility) {
+  auto model = bakery();
+  Session session(model);
+  session.set_goal(Goal::feasibility);
+  EXPECT_TRUE(session.edited());
+  auto feasibility = model;
+  feasibility.source.sha256.clear();
+  feasibility.objective.sense = model::Sense::minimise;
+  feasibility.objective.coefficients.assign(3, Rational(0));
+  CertifiedSolution found = expect_as_fresh(session, feasibility);
+  ASSERT_EQ(found.solution.outcome, Outcome::optimal);
+  EXPECT_EQ(found.solution.objective, 0);
+  EXPECT_EQ(found.certificate.extra["changes"].dump(), R"([{"goal":"feasibility"}])");
+
+  session.set_goal(Goal::model_objective);
+  EXPECT_EQ(expect_as_fresh(session, model).solution.objective, 130);
+}
+
+TEST(ExactSession, AbandonedSolveLeavesTheSessionUsable) {
+  auto model = bakery();
+  Session session(model);
+  session.set_row_upper(1, q(30));
+  run::Budget given_up;
+  given_up.abandon();
+  SolveOptions options;
+  options.budget = &given_up;
+  CertifiedSolution stopped = session.solve(options);
+  EXPECT_EQ(stopped.solution.outcome, Outcome::stopped);
+  EXPECT_EQ(stopped.solution.stop_reason, run::StopReason::abandoned);
+  EXPECT_FALSE(stopped.certified());
+
+  auto edited = model;
+  edited.source.sha256.clear();
+  edited.rows[1].upper = q(30);
+  expect_as_fresh(session, edited);
+}
+
+TEST(ExactSession, ResolvingUnchangedModelStartsAtTheLastBasis) {
+  auto model = bakery();
+  Session session(model);
+  EXPECT_GT(session.solve().solution.stats.float_iterations, 0);
+  EXPECT_EQ(session.solve().solution.stats.float_iterations, 0);
+}
+
+TEST(ExactSession, IndexOutOfRangeThrows) {
+  auto model = bakery();
+  Session session(model);
+  EXPECT_THROW(session.set_row_lower(3, q(0)), std::out_of_range);
+  EXPECT_THROW(session.restore_column(-1), std::out_of_range);
+}
+
+// A deletion-filter-like loop on a Netlib model: each row in turn relaxed to free, solved, and
+// restored, each solve compared with a fresh exact solve of the edited model.
+void relax_rows_in_turn(const model::Model& model, const std::vector<int>& rows) {
+  Session session(model);
+  expect_as_fresh(session, model);
+  for (int row : rows) {
+    SCOPED_TRACE(model.rows[row].name);
+    auto edited = model;
+    edited.source.sha256.clear();
+    edited.rows[row].lower.reset();
+    edited.rows[row].upper.reset();
+    session.set_row_lower(row, std::nullopt);
+    session.set_row_upper(row, std::nullopt);
+    if (session.edited()) expect_as_fresh(session, edited);
+    session.restore_row(row);
+    expect_as_fresh(session, model);
+  }
+}
+
+TEST(NetlibSession, AfiroRowsRelaxedInTurn) {
+  auto folder = test::shared_dir / "netlib";
+  if (!test::shared_folder_present(folder)) GTEST_SKIP() << folder << " missing";
+  auto model = model::read_model((folder / "afiro.mps.gz").string());
+  relax_rows_in_turn(model, {0, 3, 7, 12, 20});
+}
+
+TEST(NetlibSession, InfeasibleModelsRowsOfTheFarkasProofRelaxedInTurn) {
+  auto folder = test::shared_dir / "netlib-infeas";
+  if (!test::shared_folder_present(folder)) GTEST_SKIP() << folder << " missing";
+  for (const char* name : {"itest6", "woodinfe", "ex72a"}) {
+    SCOPED_TRACE(name);
+    auto model = model::read_model((folder / (std::string(name) + ".mps.gz")).string());
+    Session session(model);
+    CertifiedSolution first = session.solve();
+    ASSERT_EQ(first.solution.outcome, Outcome::infeasible);  // Netlib lp/infeas readme
+    std::vector<int> support;
+    for (int i = 0; i < model.row_count() && support.size() < 4; ++i)
+      if (first.solution.y[i] != 0) support.push_back(i);
+    relax_rows_in_turn(model, support);
+  }
+}
+
+}  // namespace
+}  // namespace plumb::exact
