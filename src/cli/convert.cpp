@@ -32,9 +32,10 @@ model::Format output_format(const ConvertOptions& options) {
                           "--to mps or --to plumb, or an output file ending in .mps or .plumb");
 }
 
-// MPS holds no labels or title of ours: those travel in the sidecar, so compare the rest.
+// MPS holds no labels, decisions or title of ours: those travel in the sidecar, so compare the rest.
 model::Model without_labels(model::Model m) {
   m.title.clear();
+  m.decisions.clear();
   m.objective.label = {};
   for (auto& row : m.rows) row.label = {};
   for (auto& column : m.columns) column.label = column.lower_label = column.upper_label = {};
@@ -42,7 +43,7 @@ model::Model without_labels(model::Model m) {
 }
 
 bool has_labels(const model::Model& m) {
-  if (!m.objective.label.empty()) return true;
+  if (!m.objective.label.empty() || !m.decisions.empty()) return true;
   for (const auto& row : m.rows)
     if (!row.label.empty()) return true;
   for (const auto& column : m.columns)

@@ -5,6 +5,7 @@
 
 #include <iosfwd>
 #include <string>
+#include <string_view>
 
 namespace plumb::model {
 
@@ -22,6 +23,9 @@ Model read_model(const std::string& path, const ReadOptions& options = {});
 
 // Parses model text already in memory; `file` names it in messages.
 Model read_model_text(std::string_view text, const std::string& file, const ReadOptions& options = {});
+
+// Lower-case hex SHA-256 of bytes: the fingerprint models, sidecars and certificates are named by.
+std::string sha256_hex(std::string_view bytes);
 
 // Writers: free-form MPS and the native format.  Both round-trip through the readers.
 void write_mps(const Model& model, std::ostream& out);
