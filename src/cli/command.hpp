@@ -41,11 +41,15 @@ model::Model load_model(const ModelOptions& options);
 // the readers and every solve loop poll, so the command ends with exit 3 wherever it is.
 void stop_on_interrupt();
 
+// The command line as typed, each word shell-quoted where it needs it (set by main).
+const std::string& command_line();
+
 // One function per subcommand; each adds itself to app and sets `action` when chosen.
 void add_inspect(CLI::App& app, Action& action);
 void add_convert(CLI::App& app, Action& action);
 void add_solve(CLI::App& app, Action& action);
 void add_check(CLI::App& app, Action& action);
 void add_audit(CLI::App& app, Action& action);
+void add_report(CLI::App& app, Action& action);
 
 }  // namespace plumb::cli

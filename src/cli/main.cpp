@@ -1,11 +1,27 @@
 // plumb: the command-line driver.  Parses options and calls one library function per command.
 #include "command.hpp"
+#include "plumb/present/report.hpp"
 #include "plumb/run/budget.hpp"
 
 #include <iostream>
 #include <new>
+#include <string>
 
 namespace plumb::cli {
+
+namespace {
+
+std::string typed_command;
+
+}  // namespace
+
+const std::string& command_line() { return typed_command; }
+
+// Records argv for reports; the program is named "plumb" whatever path started it.
+void record_command_line(int argc, char** argv) {
+  typed_command = "plumb";
+  for (int k = 1; k < argc; ++k) typed_command += " " + present::shell_quoted(argv[k]);
+}
 
 void stop_on_interrupt() { run::stop_on_interrupt_signals(); }
 
@@ -40,12 +56,14 @@ int main(int argc, char** argv) {
   CLI::App app{"plumb: audits linear programs in exact arithmetic, with certificates anyone can check"};
   app.set_version_flag("--version", std::string("plumb ") + PLUMB_VERSION);
   app.require_subcommand(1);
+  record_command_line(argc, argv);
   Action action;
   add_inspect(app, action);
   add_convert(app, action);
   add_solve(app, action);
   add_check(app, action);
   add_audit(app, action);
+  add_report(app, action);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

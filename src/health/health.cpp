@@ -116,6 +116,8 @@ void examine_rows(const Model& model, HealthReport& report) {
     if (kind == RowKind::free) report.free_rows.push_back(row.name);
     if (kind == RowKind::crossed) report.crossed_rows.push_back(row.name);
     if (!row.label.statement.empty()) ++report.labels.rows_with_statement;
+    if (kind != RowKind::free && row.label.source.empty()) ++report.labels.rows_without_source;
+    if (!row.label.decision.empty()) ++report.labels.decisions;
     auto columns = model.matrix.row_columns(i);
     if (columns.empty()) {
       report.empty_rows.push_back(row.name);
@@ -140,6 +142,12 @@ void examine_columns(const Model& model, HealthReport& report) {
     if (!column.label.statement.empty()) ++report.labels.columns_with_statement;
     if (!column.lower_label.statement.empty()) ++report.labels.bounds_with_statement;
     if (!column.upper_label.statement.empty()) ++report.labels.bounds_with_statement;
+    // A bound without a label of its own speaks through its variable's label.
+    auto source_of = [&](const model::Label& own) { return (own.empty() ? column.label : own).source; };
+    if (column.lower && *column.lower != 0 && source_of(column.lower_label).empty()) ++report.labels.bounds_without_source;
+    if (column.upper && source_of(column.upper_label).empty()) ++report.labels.bounds_without_source;
+    for (const model::Label* label : {&column.label, &column.lower_label, &column.upper_label})
+      if (!label->decision.empty()) ++report.labels.decisions;
     if (model.objective.coefficients[j] != 0) ++report.objective_nonzeros;
     if (model.matrix.column_rows(j).empty()) {
       report.empty_columns.push_back(column.name);
@@ -257,6 +265,7 @@ HealthReport inspect(const Model& model) {
   if (report.rows > 0 && report.columns > 0)
     report.density = Rational(static_cast<long>(report.nonzeros)) / (Rational(report.rows) * report.columns);
   report.labels.objective_has_statement = !model.objective.label.statement.empty();
+  report.labels.decisions += static_cast<int>(model.decisions.size()) + (model.objective.label.decision.empty() ? 0 : 1);
   examine_rows(model, report);
   examine_columns(model, report);
   measure_ranges(model, report);

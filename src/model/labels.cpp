@@ -13,6 +13,9 @@ namespace plumb::model {
 namespace {
 
 constexpr std::array<std::string_view, 6> header = {"name", "kind", "statement", "unit", "group", "hard"};
+// The optional columns after the six above: why a limit is written so (docs/labels.md).
+constexpr std::array<std::string_view, 3> decision_header = {"decision", "source", "owner"};
+constexpr std::string_view model_kind = "model";  // a line about the model as a whole
 
 std::string quoted(const std::string& text) {
   return "'" + (text.size() > 40 ? text.substr(0, 40) + "...'" : text + "'");
@@ -26,12 +29,25 @@ Label& label_for(Model& model, const CsvField& name, const CsvField& kind) {
     throw InputError(name.where, "the unknown row " + quoted(name.text), "the name of a row of the model");
   }
   if (kind.text != "column" && kind.text != "lower" && kind.text != "upper")
-    throw InputError(kind.where, "the kind " + quoted(kind.text), "row, column, lower or upper");
+    throw InputError(kind.where, "the kind " + quoted(kind.text), "row, column, lower, upper or model");
   auto j = model.find_column(name.text);
   if (!j) throw InputError(name.where, "the unknown column " + quoted(name.text), "the name of a column of the model");
   Column& column = model.columns[static_cast<std::size_t>(*j)];
   if (kind.text == "column") return column.label;
   return kind.text == "lower" ? column.lower_label : column.upper_label;
+}
+
+// A "model" line: a decision about the whole model, in the decision columns; the rest stay empty.
+void apply_model_decision(Model& model, const std::vector<CsvField>& f) {
+  if (f.size() <= header.size())
+    throw InputError(f[1].where, "the kind 'model' in a file without decision columns",
+                     "the header name,kind,statement,unit,group,hard,decision,source,owner");
+  for (std::size_t k : {0, 2, 3, 4, 5})
+    if (!f[k].text.empty())
+      throw InputError(f[k].where, "the " + std::string(header[k]) + " " + quoted(f[k].text) + " on a model line",
+                       "an empty field: a model line fills only decision, source and owner");
+  if (f[6].text.empty()) throw InputError(f[6].where, "an empty decision on a model line", "the decision's text");
+  model.decisions.push_back({f[6].text, f[7].text, f[8].text});
 }
 
 }  // namespace
@@ -40,16 +56,24 @@ void apply_labels_text(Model& model, std::string_view text, const std::string& f
   std::vector<CsvRecord> records = read_csv(text, file);
   if (records.empty()) throw InputError({file, 1, 0}, "an empty file", "the header line name,kind,statement,unit,group,hard");
   const CsvRecord& first = records.front();
-  bool header_ok = first.fields.size() == header.size();
-  for (std::size_t k = 0; header_ok && k < header.size(); ++k) header_ok = first.fields[k].text == header[k];
-  if (!header_ok) throw InputError(first.where, "a first line that is not the header", "name,kind,statement,unit,group,hard");
+  const std::size_t width = first.fields.size();
+  bool header_ok = width == header.size() || width == header.size() + decision_header.size();
+  for (std::size_t k = 0; header_ok && k < width; ++k)
+    header_ok = first.fields[k].text == (k < header.size() ? header[k] : decision_header[k - header.size()]);
+  if (!header_ok)
+    throw InputError(first.where, "a first line that is not the header",
+                     "name,kind,statement,unit,group,hard (and optionally ,decision,source,owner)");
   std::map<std::pair<std::string, std::string>, long> seen;  // (name, kind) -> line
   for (std::size_t r = 1; r < records.size(); ++r) {
     const CsvRecord& record = records[r];
-    if (record.fields.size() != header.size())
+    if (record.fields.size() != width)
       throw InputError(record.where, std::to_string(record.fields.size()) + " fields",
-                       "6 fields: name,kind,statement,unit,group,hard");
+                       std::to_string(width) + " fields, as in the header");
     const auto& f = record.fields;
+    if (f[1].text == model_kind) {
+      apply_model_decision(model, f);
+      continue;
+    }
     Label& label = label_for(model, f[0], f[1]);
     auto [first, fresh] = seen.emplace(std::pair(f[0].text, f[1].text), record.where.line);
     if (!fresh)
@@ -64,6 +88,11 @@ void apply_labels_text(Model& model, std::string_view text, const std::string& f
     if (!f[3].text.empty()) label.unit = f[3].text;
     if (!f[4].text.empty()) label.group = f[4].text;
     if (hard) label.hard = hard;
+    if (width > header.size()) {
+      if (!f[6].text.empty()) label.decision = f[6].text;
+      if (!f[7].text.empty()) label.source = f[7].text;
+      if (!f[8].text.empty()) label.owner = f[8].text;
+    }
   }
 }
 
@@ -97,12 +126,29 @@ void write_labels(const Model& model, std::ostream& out) {
     for (char c : text) quoted += c == '"' ? std::string("\"\"") : std::string(1, c);
     return quoted + "\"";
   };
+  // The decision columns only when something fills them, so older readers keep reading the rest.
+  bool with_decisions = !model.decisions.empty() || model.objective.label.recorded();
+  for (const Row& row : model.rows) with_decisions = with_decisions || row.label.recorded();
+  for (const Column& column : model.columns)
+    with_decisions = with_decisions || column.label.recorded() || column.lower_label.recorded() ||
+                     column.upper_label.recorded();
+  auto decision_fields = [&](const std::string& decision, const std::string& source, const std::string& owner) {
+    if (with_decisions) out << ',' << field(decision) << ',' << field(source) << ',' << field(owner);
+    out << '\n';
+  };
   auto line = [&](const std::string& name, const char* kind, const Label& label) {
     if (label.empty()) return;
     out << field(name) << ',' << kind << ',' << field(label.statement) << ',' << field(label.unit) << ','
-        << field(label.group) << ',' << (label.hard ? (*label.hard ? "yes" : "no") : "") << '\n';
+        << field(label.group) << ',' << (label.hard ? (*label.hard ? "yes" : "no") : "");
+    decision_fields(label.decision, label.source, label.owner);
   };
-  out << "name,kind,statement,unit,group,hard\n";
+  out << "name,kind,statement,unit,group,hard";
+  if (with_decisions) out << ",decision,source,owner";
+  out << '\n';
+  for (const ModelDecision& decision : model.decisions) {
+    out << ",model,,,,";
+    decision_fields(decision.decision, decision.source, decision.owner);
+  }
   line(model.objective.name, "row", model.objective.label);
   for (const Row& row : model.rows) line(row.name, "row", row.label);
   for (const Column& column : model.columns) {

@@ -104,7 +104,7 @@ Rational Model::objective_value(const std::vector<Rational>& x) const {
 
 bool Model::same_content(const Model& other) const {
   return title == other.title && rows == other.rows && columns == other.columns &&
-         objective == other.objective && matrix == other.matrix;
+         objective == other.objective && matrix == other.matrix && decisions == other.decisions;
 }
 
 ModelBuilder::ModelBuilder(std::string title) {

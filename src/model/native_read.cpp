@@ -9,6 +9,9 @@ namespace plumb::model::detail {
 namespace {
 
 constexpr int max_parenthesis_depth = 64;  // keeps "((((..." from exhausting the stack
+// Opens a model-level decision and, with 'source' and 'owner', names a label part; none of the
+// three is reserved, so names spelled like them keep reading as before.
+constexpr std::string_view decision_keyword = "decision";
 
 std::string shorten(const std::string& text) { return text.size() > 40 ? text.substr(0, 40) + "..." : text; }
 
@@ -60,6 +63,7 @@ struct BoundClause {
 // Which label parts a statement has given, so each comes at most once.
 struct LabelParts {
   bool statement = false, unit = false, group = false, hard = false;
+  bool decision = false, source = false, owner = false;
 };
 
 class Reader {
@@ -100,9 +104,12 @@ class Reader {
     next_ = 0;
     ++statements_;
     const Token& keyword = take();
-    if (keyword.kind != TokenKind::word || !is_statement_keyword(keyword.text))
-      fail(keyword, "a statement keyword: title, variable, bound, minimise, maximise or constraint");
-    if (keyword.text == "title")
+    bool decision = keyword.kind == TokenKind::word && keyword.text == decision_keyword;
+    if (!decision && (keyword.kind != TokenKind::word || !is_statement_keyword(keyword.text)))
+      fail(keyword, "a statement keyword: title, decision, variable, bound, minimise, maximise or constraint");
+    if (decision)
+      decision_statement();
+    else if (keyword.text == "title")
       title_statement(keyword);
     else if (keyword.text == "variable")
       variable_statement();
@@ -124,6 +131,19 @@ class Reader {
     if (text.kind != TokenKind::text) fail(text, "the title in double quotes");
     model_.title = text.text;
     expect_end("the end of the title statement");
+  }
+
+  // decision "text" {source "text" | owner "text"}: about the model as a whole.
+  void decision_statement() {
+    --next_;  // the keyword opens the decision's own text, read like the label part of that name
+    Label label;
+    LabelParts parts;
+    while (peek().kind != TokenKind::end) {
+      if (!at_word(decision_keyword) && !at_word("source") && !at_word("owner"))
+        fail(peek(), "source \"text\", owner \"text\" or the end of the decision");
+      label_clause(label, parts);
+    }
+    model_.decisions.push_back({std::move(label.decision), std::move(label.source), std::move(label.owner)});
   }
 
   void variable_statement() {
@@ -299,6 +319,16 @@ class Reader {
     } else if (at_word("hard") || at_word("soft")) {
       once(parts.hard, "'hard' or 'soft'");
       label.hard = take().text == "hard";
+    } else if (at_word(decision_keyword) || at_word("source") || at_word("owner")) {
+      // Keywords only here, where no name can stand, so models naming a variable 'source' still read.
+      const std::string& word = take().text;
+      bool& seen = word == "source" ? parts.source : word == "owner" ? parts.owner : parts.decision;
+      std::string& field = word == "source" ? label.source : word == "owner" ? label.owner : label.decision;
+      if (seen) throw InputError(token.where, "a second '" + word + "'", "one '" + word + "' here");
+      seen = true;
+      const Token& text = take();
+      if (text.kind != TokenKind::text) fail(text, "the " + word + " in double quotes after '" + word + "'");
+      field = text.text;
     } else {
       return false;
     }
@@ -628,7 +658,8 @@ bool looks_like_native(std::string_view text) {
     if (first == std::string_view::npos || line[first] == '#') continue;
     if (first != 0) return false;
     std::size_t word_end = line.find_first_of(" \t\r");
-    return is_statement_keyword(line.substr(0, word_end));
+    std::string_view keyword = line.substr(0, word_end);
+    return is_statement_keyword(keyword) || keyword == decision_keyword;
   }
   return false;
 }

@@ -85,6 +85,13 @@ void write_statement(std::ostream& out, const std::vector<std::string>& head,
   out << line << "\n";
 }
 
+void add_decision(std::vector<std::string>& pieces, const std::string& decision, const std::string& source,
+                  const std::string& owner) {
+  if (!decision.empty()) pieces.push_back("decision \"" + escaped(decision, '"') + "\"");
+  if (!source.empty()) pieces.push_back("source \"" + escaped(source, '"') + "\"");
+  if (!owner.empty()) pieces.push_back("owner \"" + escaped(owner, '"') + "\"");
+}
+
 void add_label(std::vector<std::string>& pieces, const Label& label) {
   if (!label.unit.empty()) pieces.push_back("[" + escaped(label.unit, ']') + "]");
   if (!label.statement.empty()) pieces.push_back("\"" + escaped(label.statement, '"') + "\"");
@@ -93,6 +100,7 @@ void add_label(std::vector<std::string>& pieces, const Label& label) {
                                      ? label.group
                                      : "\"" + escaped(label.group, '"') + "\""));
   if (label.hard) pieces.push_back(*label.hard ? "hard" : "soft");
+  add_decision(pieces, label.decision, label.source, label.owner);
 }
 
 void add_terms(std::vector<std::string>& pieces, const Model& model, std::span<const int> columns,
@@ -195,6 +203,12 @@ void write_constraint(std::ostream& out, const Model& model, int i) {
 
 void write_native(const Model& model, std::ostream& out) {
   if (!model.title.empty()) out << "title \"" << escaped(model.title, '"') << "\"\n\n";
+  for (const ModelDecision& decision : model.decisions) {
+    std::vector<std::string> pieces;
+    add_decision(pieces, decision.decision, decision.source, decision.owner);
+    write_statement(out, pieces);
+  }
+  if (!model.decisions.empty()) out << "\n";
   for (const Column& column : model.columns) write_variable(out, column);
   out << "\n";
   write_objective(out, model);

@@ -20,6 +20,8 @@ Format resolve_format(const std::string& path, std::string_view text, Format req
 
 }  // namespace
 
+std::string sha256_hex(std::string_view bytes) { return detail::sha256_hex(bytes); }
+
 Model read_model_text(std::string_view text, const std::string& file, const ReadOptions& options) {
   Model model = resolve_format(file, text, options.format) == Format::native
                     ? detail::parse_native(text, file)

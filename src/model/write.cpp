@@ -7,9 +7,10 @@
 namespace plumb::model {
 namespace {
 
-// MPS holds no labels or title of ours: those travel in the sidecar, so compare the rest.
+// MPS holds no labels, decisions or title of ours: those travel in the sidecar, so compare the rest.
 Model without_labels(Model m) {
   m.title.clear();
+  m.decisions.clear();
   m.objective.label = {};
   for (auto& row : m.rows) row.label = {};
   for (auto& column : m.columns) column.label = column.lower_label = column.upper_label = {};
@@ -19,7 +20,7 @@ Model without_labels(Model m) {
 }  // namespace
 
 bool has_labels(const Model& m) {
-  if (!m.objective.label.empty()) return true;
+  if (!m.objective.label.empty() || !m.decisions.empty()) return true;
   for (const auto& row : m.rows)
     if (!row.label.empty()) return true;
   for (const auto& column : m.columns)

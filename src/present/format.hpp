@@ -1,6 +1,7 @@
 // Internal to present: aligned tables and the number and list wording every rendering shares.
 #pragma once
 
+#include "plumb/health/health.hpp"
 #include "plumb/model/model.hpp"
 #include "plumb/numeric/rational.hpp"
 
@@ -53,6 +54,9 @@ std::string count_of(std::size_t count, const std::string& singular, const std::
 
 // The first `shown` names, then "and N more": "a, b, c and 12 more".
 std::string name_list(const std::vector<std::string>& names, std::size_t shown);
+
+// One finding of inspect in a line: what it means, then where (the health report's own wording).
+std::string finding_text(const health::Finding& finding, const health::HealthReport& report);
 
 // JSON forms: an exact number is its canonical fraction text ("-3/2"); an absent side is null.
 nlohmann::json exact_json(const Rational& value);

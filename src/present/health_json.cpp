@@ -106,6 +106,9 @@ json health_json(const HealthReport& r) {
       {"columns_with_statement", r.labels.columns_with_statement},
       {"bounds_with_statement", r.labels.bounds_with_statement},
       {"objective_has_statement", r.labels.objective_has_statement},
+      {"rows_without_source", r.labels.rows_without_source},
+      {"bounds_without_source", r.labels.bounds_without_source},
+      {"decisions", r.labels.decisions},
   };
   json findings = json::array();
   for (const auto& f : r.findings)

@@ -5,37 +5,10 @@
 
 #include <ostream>
 
-namespace plumb::present {
+namespace plumb::present::detail {
 
-namespace {
-
-using detail::count_of;
-using numeric::exact_and_decimal;
-using detail::name_list;
-using detail::Table;
 using health::HealthReport;
-using health::NumberKind;
 using health::rules::names_shown;
-
-std::string format_name(const std::string& format) {
-  if (format == "mps-fixed") return "MPS, fixed form";
-  if (format == "mps-free") return "MPS, free form";
-  if (format == "plumb") return "plumb native";
-  if (format == "built") return "built in code";
-  return format.empty() ? "unknown" : format;
-}
-
-std::string place_text(NumberKind kind, const health::Place& at) {
-  switch (kind) {
-    case NumberKind::matrix: return "row " + at.row + ", column " + at.column;
-    case NumberKind::objective: return "cost of " + at.column;
-    case NumberKind::row_side:
-      return "row " + at.row + (at.side == "both" ? ", both sides" : ", " + at.side + " side");
-    case NumberKind::bound:
-      return "column " + at.column + (at.side == "both" ? ", fixed value" : ", " + at.side + " bound");
-  }
-  return {};
-}
 
 std::string group_list(const std::vector<std::vector<std::string>>& groups) {
   std::vector<std::string> shown;
@@ -44,7 +17,7 @@ std::string group_list(const std::vector<std::vector<std::string>>& groups) {
 }
 
 // One line per finding: what it means, then where.
-std::string describe(const health::Finding& finding, const HealthReport& r) {
+std::string finding_text(const health::Finding& finding, const HealthReport& r) {
   const std::string& code = finding.code;
   std::size_t n = finding.count;
   if (code == "sense-comment") return "objective sense: " + r.sense_comment;
@@ -78,6 +51,42 @@ std::string describe(const health::Finding& finding, const HealthReport& r) {
   return code + ": " + std::to_string(n);
 }
 
+}  // namespace plumb::present::detail
+
+namespace plumb::present {
+
+namespace {
+
+using detail::count_of;
+using detail::group_list;
+using numeric::exact_and_decimal;
+using detail::name_list;
+using detail::Table;
+using health::HealthReport;
+using health::NumberKind;
+using health::rules::names_shown;
+
+std::string format_name(const std::string& format) {
+  if (format == "mps-fixed") return "MPS, fixed form";
+  if (format == "mps-free") return "MPS, free form";
+  if (format == "plumb") return "plumb native";
+  if (format == "built") return "built in code";
+  return format.empty() ? "unknown" : format;
+}
+
+std::string place_text(NumberKind kind, const health::Place& at) {
+  switch (kind) {
+    case NumberKind::matrix: return "row " + at.row + ", column " + at.column;
+    case NumberKind::objective: return "cost of " + at.column;
+    case NumberKind::row_side:
+      return "row " + at.row + (at.side == "both" ? ", both sides" : ", " + at.side + " side");
+    case NumberKind::bound:
+      return "column " + at.column + (at.side == "both" ? ", fixed value" : ", " + at.side + " bound");
+  }
+  return {};
+}
+
+
 void write_identity(const HealthReport& r, std::ostream& out) {
   out << "Model health: " << (r.title.empty() ? "(untitled)" : r.title) << "\n";
   Table table;
@@ -98,7 +107,7 @@ void write_attention(const HealthReport& r, std::ostream& out) {
   }
   Table table;
   for (const auto& finding : r.findings)
-    table.add({finding.severity == health::Severity::error ? "ERROR" : to_string(finding.severity), describe(finding, r)});
+    table.add({finding.severity == health::Severity::error ? "ERROR" : to_string(finding.severity), detail::finding_text(finding, r)});
   table.write(out);
 }
 
@@ -193,6 +202,11 @@ void write_labels(const HealthReport& r, std::ostream& out) {
   table.add({"columns", std::to_string(r.labels.columns_with_statement), "of " + std::to_string(r.columns)});
   table.add({"bounds", std::to_string(r.labels.bounds_with_statement), "lower or upper bounds with their own statement"});
   table.add({"objective", r.labels.objective_has_statement ? "yes" : "no"});
+  table.add({"rows without a source", std::to_string(r.labels.rows_without_source),
+             "requirements with no recorded document, contract or measurement"});
+  table.add({"bounds without a source", std::to_string(r.labels.bounds_without_source),
+             "finite bounds other than the default 0, likewise"});
+  table.add({"decisions", std::to_string(r.labels.decisions), "recorded decisions and assumptions"});
   table.write(out);
 }
 
@@ -209,3 +223,4 @@ void write_health_text(const HealthReport& report, std::ostream& out) {
 }
 
 }  // namespace plumb::present
+

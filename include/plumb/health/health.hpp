@@ -83,6 +83,11 @@ struct LabelCoverage {
   int columns_with_statement = 0;
   int bounds_with_statement = 0;  // column lower/upper bound statements
   bool objective_has_statement = false;
+  // Requirements whose source (document, contract, measurement) is not recorded: rows with a
+  // finite side, and finite bounds other than the default lower bound 0.
+  int rows_without_source = 0;
+  int bounds_without_source = 0;
+  int decisions = 0;  // decisions recorded, for the model as a whole and on any label
 };
 
 // The kinds of finding, from worst to mildest; each carries how many places it concerns.

@@ -24,8 +24,22 @@ struct Label {
   std::string unit;           // e.g. "bbl"
   std::string group;          // e.g. "regulatory", "contract"
   std::optional<bool> hard;   // hard limit (law, physics) or soft (a wish); unknown when empty
-  bool empty() const { return statement.empty() && unit.empty() && group.empty() && !hard; }
+  // Why it is written so, for whoever signs the model off (docs/model-format.md, "Decisions"):
+  std::string decision;       // what was decided, assumed or simplified, e.g. "octane blends linearly"
+  std::string source;         // where a limit's value comes from: document and clause, contract, measurement
+  std::string owner;          // the role that answers for it, e.g. "blending engineer"
+  bool empty() const { return statement.empty() && unit.empty() && group.empty() && !hard && !recorded(); }
+  // True when a decision, source or owner is recorded.
+  bool recorded() const { return !decision.empty() || !source.empty() || !owner.empty(); }
   bool operator==(const Label&) const = default;
+};
+
+// A decision about the model as a whole, with where it comes from and who answers for it.
+struct ModelDecision {
+  std::string decision;
+  std::string source;
+  std::string owner;
+  bool operator==(const ModelDecision&) const = default;
 };
 
 // lower <= a.x <= upper; lower == upper for an equation.
@@ -139,6 +153,7 @@ struct Model {
   std::vector<Column> columns;
   Objective objective;
   Matrix matrix;
+  std::vector<ModelDecision> decisions;  // in the order written
   Source source;
   std::vector<Warning> warnings;
 
@@ -154,7 +169,7 @@ struct Model {
   // Value of the objective as the model states it (sense as written, constant included).
   Rational objective_value(const std::vector<Rational>& x) const;
 
-  // The same model, content only (names, numbers, labels, title); source and warnings ignored.
+  // The same model, content only (names, numbers, labels, decisions, title); source and warnings ignored.
   bool same_content(const Model& other) const;
 
  private:

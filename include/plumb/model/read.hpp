@@ -37,4 +37,7 @@ struct SenseCommentNote {
 };
 std::optional<SenseCommentNote> sense_comment_note(const Source& source, Sense used);
 
+// Lower-case hex SHA-256 of bytes: the fingerprint models, sidecars and certificates are named by.
+std::string sha256_hex(std::string_view bytes);
+
 }  // namespace plumb::model
