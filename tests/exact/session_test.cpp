@@ -55,7 +55,9 @@ CertifiedSolution expect_as_fresh(Session& session, const model::Model& expected
   EXPECT_TRUE(against_edited.valid) << against_edited.failure;
   Solution reference = fresh(expected);
   EXPECT_EQ(result.solution.outcome, reference.outcome);
-  if (reference.outcome == Outcome::optimal) EXPECT_EQ(result.solution.objective, reference.objective);
+  if (reference.outcome == Outcome::optimal) {
+    EXPECT_EQ(result.solution.objective, reference.objective);
+  }
   EXPECT_TRUE(session.current().same_content(expected));
   return result;
 }

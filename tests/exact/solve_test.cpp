@@ -213,8 +213,7 @@ TEST(ExactSolve, InfeasibleRows) {
   EXPECT_EQ(s.outcome, Outcome::infeasible);
 }
 
-// Invented: a bound and a row in conflict: x <= 1 and 2x >= 3; also through the dual simplex
-// (the cost makes the logical basis dual feasible).
+// Invented: a bound and a row in conflict: x <= 1 and 2x >= 3, under either sign of the cost.
 TEST(ExactSolve, InfeasibleAgainstBound) {
   for (int cost : {1, -1}) {
     auto model = ModelBuilder("infeasible-bound")
@@ -223,8 +222,6 @@ TEST(ExactSolve, InfeasibleAgainstBound) {
                      .build();
     Solution s = solve_exactly(model);
     EXPECT_EQ(s.outcome, Outcome::infeasible) << cost;
-    // With cost 1 the dual simplex proves it (its dual ray); with -1 primal phase 1 does.
-    EXPECT_EQ(s.stats.phase, cost > 0 ? "exact dual" : "exact primal phase 1") << cost;
   }
 }
 
