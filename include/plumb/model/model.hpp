@@ -25,9 +25,9 @@ struct Label {
   std::string group;          // e.g. "regulatory", "contract"
   std::optional<bool> hard;   // hard limit (law, physics) or soft (a wish); unknown when empty
   // Why it is written so, for whoever signs the model off (docs/model-format.md, "Decisions"):
-  std::string decision;       // what was decided, assumed or simplified, e.g. "octane blends linearly"
-  std::string source;         // where a limit's value comes from: document and clause, contract, measurement
-  std::string owner;          // the role that answers for it, e.g. "blending engineer"
+  std::string decision{};       // what was decided, assumed or simplified, e.g. "octane blends linearly"
+  std::string source{};       // where a limit's value comes from: document and clause, contract, measurement
+  std::string owner{};        // the role that answers for it, e.g. "blending engineer"
   bool empty() const { return statement.empty() && unit.empty() && group.empty() && !hard && !recorded(); }
   // True when a decision, source or owner is recorded.
   bool recorded() const { return !decision.empty() || !source.empty() || !owner.empty(); }
