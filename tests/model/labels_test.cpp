@@ -119,7 +119,7 @@ TEST(Labels, CorpusSidecarMatchesTheNativeModel) {
 TEST(LabelsErrors, BadFiles) {
   const plumb::test::BadInput cases[] = {
       {"bad-labels-unknown-name.labels.csv", 3, 1, "the unknown column 'BUTANE'"},
-      {"bad-labels-unknown-kind.labels.csv", 2, 5, "expected row, column, lower or upper"},
+      {"bad-labels-unknown-kind.labels.csv", 2, 5, "expected row, column, lower, upper or model"},
       {"bad-labels-column-count.labels.csv", 2, 1, "found 5 fields, expected 6 fields"},
       {"bad-labels-duplicate-line.labels.csv", 4, 1, "the first is line 2"},
       {"bad-labels-hard-flag.labels.csv", 2, 60, "expected yes, no or nothing"},
@@ -157,7 +157,7 @@ TEST(LabelsErrors, InlineMistakes) {
   EXPECT_EQ(error(std::string(header) + "x,column,\"a\"b,,,\n"),
             "t.labels.csv:2:13: found 'b' after a closing quote, expected ',' or the end of the line");
   EXPECT_EQ(error(std::string(header) + "x,column,a,b,c,d,e\n"),
-            "t.labels.csv:2:1: found 7 fields, expected 6 fields: name,kind,statement,unit,group,hard");
+            "t.labels.csv:2:1: found 7 fields, expected 6 fields, as in the header");
   EXPECT_EQ(error(std::string(header) + "x,column,\x01,,,\n"),
             "t.labels.csv:2:10: found a control byte 0x01 (binary data?), expected text");
 }
