@@ -1,6 +1,8 @@
 // plumb audit's library part (include/plumb/audit/audit.hpp).
 #include "plumb/audit/audit.hpp"
 
+#include "plumb/simplex/float_simplex.hpp"
+
 #include <algorithm>
 #include <chrono>
 
@@ -21,12 +23,56 @@ VarStatus resting_place(const Rational& value, const model::Side& lower, const m
   return VarStatus::basic;
 }
 
-// The optimum from a start basis.  The one place to swap for exact::Session when it lands.
+// The optimum from a start basis: the float search from it, then exact certification (and
+// repair) from where the search ends, as the one solve path does from a cold start.  Exact pivots
+// from a guess can take minutes where the float search takes milliseconds.  The one place to swap
+// for exact::Session when it lands.
 exact::CertifiedSolution solve_from(const model::Model& model, const simplex::Basis& start, run::Budget* budget) {
+  simplex::FloatOptions search;
+  search.budget = budget;
+  search.warm_start = &start;
+  simplex::FloatResult found = simplex::solve_float(model, search);
   exact::SolveOptions options;
   options.budget = budget;
-  options.warm_start = &start;
+  if (found.status == simplex::FloatStatus::optimal) options.warm_start = &found.basis;
   return exact::certified_solve(model, options);
+}
+
+// A basis has one basic variable per row: a guess with too many drops the basic columns nearest
+// a bound; one with too few makes the logicals of rows met with equality basic, inequalities
+// first (a degenerate vertex).
+void fit_basis_count(const model::Model& model, const std::vector<Rational>& x, simplex::Basis& basis) {
+  long basic = std::count(basis.columns.begin(), basis.columns.end(), VarStatus::basic) +
+               std::count(basis.rows.begin(), basis.rows.end(), VarStatus::basic);
+  long rows = model.row_count();
+  if (basic > rows) {
+    std::vector<std::pair<Rational, std::size_t>> nearness;  // distance to the nearest finite bound
+    for (std::size_t j = 0; j < basis.columns.size(); ++j) {
+      if (basis.columns[j] != VarStatus::basic) continue;
+      const model::Column& c = model.columns[j];
+      if (!c.lower && !c.upper) continue;
+      Rational to_lower = c.lower ? Rational(abs(x[j] - *c.lower)) : Rational(-1);
+      Rational to_upper = c.upper ? Rational(abs(x[j] - *c.upper)) : Rational(-1);
+      Rational nearest = to_lower < 0 ? to_upper : to_upper < 0 ? to_lower : std::min(to_lower, to_upper);
+      nearness.emplace_back(nearest, j);
+    }
+    std::sort(nearness.begin(), nearness.end());
+    for (std::size_t k = 0; k < nearness.size() && basic > rows; ++k, --basic) {
+      std::size_t j = nearness[k].second;
+      const model::Column& c = model.columns[j];
+      bool lower = c.lower && (!c.upper || abs(x[j] - *c.lower) <= abs(x[j] - *c.upper));
+      basis.columns[j] = lower ? VarStatus::at_lower : VarStatus::at_upper;
+    }
+  }
+  for (int pass = 0; pass < 2 && basic < rows; ++pass)
+    for (std::size_t i = 0; i < basis.rows.size() && basic < rows; ++i) {
+      const model::Row& row = model.rows[i];
+      bool equation = row.lower && row.upper && *row.lower == *row.upper;
+      if (basis.rows[i] != VarStatus::basic && equation == (pass == 1)) {
+        basis.rows[i] = VarStatus::basic;
+        ++basic;
+      }
+    }
 }
 
 bool is_hard(const model::Model& model, const Violation& v) {
@@ -61,6 +107,7 @@ simplex::Basis guess_basis(const model::Model& model, const std::vector<Rational
     VarStatus status = resting_place(evaluation.activity[i], model.rows[i].lower, model.rows[i].upper, tolerance);
     basis.rows.push_back(status == VarStatus::at_zero ? VarStatus::basic : status);  // a free row stays basic
   }
+  fit_basis_count(model, x, basis);
   return basis;
 }
 

@@ -69,7 +69,7 @@ TEST(AuditValues, RefusalsAreLocated) {
       {"{\"x\": 1,\n \"y\": [2]}", 2, 7, "found an array"},
       {"{\"x\": 1,\n \"y\": true}", 2, 7, "found the value true"},
       {"{\"x\": 1, \"x\": 2}", 1, 10, "a second value for column 'x'"},
-      {"{\"x\": 1,", 1, 8, "invalid JSON"},
+      {"{\"x\": 1,", 1, 9, "invalid JSON"},
       {"x,\"1\n", 1, 3, "a quoted field that is never closed"},
       {"x,1\"2\n", 1, 4, "a '\"' inside an unquoted field"},
       {"name,value\n", 1, 0, "found no names with values"},
