@@ -69,6 +69,7 @@ ordered_json audit_json(const model::Model& model, const audit::Audit& a, const 
     }
     if (s.outcome == exact::Outcome::optimal) optimum["objective"] = exact_json(s.objective);
     optimum["start_basics"] = a.start_basics;
+    optimum["warm_start"] = a.optimum_from_warm_start;
     optimum["exact_iterations"] = s.stats.exact_iterations;
     out["optimum"] = std::move(optimum);
   }

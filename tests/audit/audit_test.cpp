@@ -68,6 +68,7 @@ TEST(AuditRun, ExactOptimumHasNoGapAndNoChanges) {
   ASSERT_TRUE(a.gap_to_optimum);
   EXPECT_EQ(a.gap_to_optimum->absolute, 0);
   EXPECT_TRUE(a.changes.empty());
+  EXPECT_TRUE(a.optimum_from_warm_start);  // the plan's own basis: nothing to give up
 }
 
 TEST(AuditRun, ToleranceDecidesTheWords) {

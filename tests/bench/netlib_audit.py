@@ -43,6 +43,7 @@ def timed(command, limit):
 
 
 def main():
+    sys.set_int_max_str_digits(0)  # exact fractions of tens of thousands of digits (pilot87)
     parser = argparse.ArgumentParser(description=__doc__.split("\n\n")[0])
     parser.add_argument("shared", nargs="?", default=str(REPO.parent / "shared"))
     parser.add_argument("--plumb", default=str(REPO / "build" / "plumb"))

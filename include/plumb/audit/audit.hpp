@@ -59,6 +59,7 @@ struct Audit {
   std::optional<exact::CertifiedSolution> optimum;  // when solved
   simplex::Basis start_basis;                // guessed from the plan
   int start_basics = 0;                      // how many the guess made basic (a basis has one per row)
+  bool optimum_from_warm_start = false;      // the warm search from the guess was kept, not given up
   std::optional<Gap> gap_to_optimum;         // when the optimum is certified optimal
   GapVerdict gap_verdict = GapVerdict::not_asked;
   std::vector<Change> changes;               // to the optimum, largest first
