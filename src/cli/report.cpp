@@ -1,11 +1,12 @@
 // plumb report: solves a model exactly, then writes one self-contained document (HTML or
 // Markdown) of what was analysed, found and proven, and how to check it again.
+#include "plumb/present/report.hpp"
 #include "command.hpp"
+#include "plumb/audit/audit.hpp"
 #include "plumb/certificate/certificate.hpp"
 #include "plumb/exact/solve.hpp"
 #include "plumb/health/health.hpp"
 #include "plumb/model/read.hpp"
-#include "plumb/present/report.hpp"
 #include "plumb/run/budget.hpp"
 
 #include <chrono>
@@ -45,12 +46,29 @@ std::string utc_now() {
   return text;
 }
 
-// The plan audit is not part of this build yet: --plan and --duals are refused plainly rather
-// than reported half.  plumb audit fills present::AuditSection here when it lands.
-std::optional<present::AuditSection> audit_for_report(const ReportCommandOptions& options) {
-  if (options.plan_path.empty() && options.duals_path.empty()) return std::nullopt;
-  const std::string& given = options.plan_path.empty() ? options.duals_path : options.plan_path;
-  throw model::InputError({given}, "a plan to audit", "no --plan or --duals: this build of plumb report has no plan audit yet");
+// Reads the plan (and duals) before anything is solved, so that a bad file stops the command at
+// once; the audit itself runs after the solve, against its certified optimum.
+struct PlanForReport {
+  audit::Values plan;
+  std::optional<audit::Values> duals;
+  present::AuditRequest request;
+};
+
+std::optional<PlanForReport> read_plan(const ReportCommandOptions& options, const model::Model& model) {
+  if (options.plan_path.empty()) {
+    if (!options.duals_path.empty())
+      throw model::InputError({options.duals_path}, "duals without a plan", "--duals together with --plan");
+    return std::nullopt;
+  }
+  PlanForReport read{audit::read_values(options.plan_path, model, audit::NamesOf::columns), std::nullopt, {}};
+  read.request.plan_path = options.plan_path;
+  read.request.plan_format = read.plan.format;
+  if (!options.duals_path.empty()) {
+    read.duals = audit::read_values(options.duals_path, model, audit::NamesOf::rows);
+    read.request.duals_path = options.duals_path;
+  }
+  read.request.options.solve_optimum = false;  // the report's own solve is the optimum
+  return read;
 }
 
 std::string default_output(const std::string& model_path, bool markdown) {
@@ -68,8 +86,8 @@ void write_text_file(const std::string& path, const std::string& text, const cha
 int run_report(const ReportCommandOptions& options) {
   stop_on_interrupt();
   bool markdown = options.format == "md" || (options.format.empty() && options.output.ends_with(".md"));
-  std::optional<present::AuditSection> audit = audit_for_report(options);
   model::Model model = load_model(options.model);
+  std::optional<PlanForReport> plan = read_plan(options, model);
   health::HealthReport health = health::inspect(model);
   run::Budget budget(options.time_limit, std::nullopt);
   exact::SolveOptions solve;
@@ -93,6 +111,8 @@ int run_report(const ReportCommandOptions& options) {
   input.run.version = PLUMB_VERSION;
   input.run.model_file = describe_file(options.model.path);
   if (!model.source.labels_path.empty()) input.run.labels_file = describe_file(model.source.labels_path);
+  if (plan) input.run.plan_file = describe_file(options.plan_path);
+  if (plan && plan->duals) input.run.duals_file = describe_file(options.duals_path);
   if (!stopped) {
     input.certificate.text = certificate::to_json_text(result.certificate);
     input.certificate.sha256 = model::sha256_hex(input.certificate.text);
@@ -103,7 +123,11 @@ int run_report(const ReportCommandOptions& options) {
     }
   }
   input.conflict = present::conflict_from_farkas(model, result);
-  input.audit = std::move(audit);
+  if (plan && !stopped) {
+    if (plan->duals) plan->request.options.duals = &plan->duals->values;
+    audit::Audit audited = audit::run_audit(model, plan->plan, plan->request.options);
+    input.audit = present::audit_section_from(model, audited, plan->request, result);
+  }
   std::ostringstream text;
   present::write_report(input, markdown ? present::ReportFormat::markdown : present::ReportFormat::html, text);
   if (output == "-") std::cout << text.str();
@@ -120,8 +144,11 @@ void add_report(CLI::App& app, Action& action) {
   auto* command = app.add_subcommand(
       "report", "Solve a model exactly and write one self-contained document of the model, the result and its proof");
   add_model_options(*command, options->model);
-  command->add_option("--plan", options->plan_path, "A plan to audit (needs the plan audit; not in this build)");
-  command->add_option("--duals", options->duals_path, "Duals that go with --plan (likewise)");
+  command->add_option(
+      "--plan", options->plan_path,
+      "A plan from another solver to audit beside the solve (docs/formats.md: CSV, list or JSON)");
+  command->add_option("--duals", options->duals_path,
+                      "That solver's duals, for a safe bound on the optimum (with --plan)");
   command->add_option("-o,--output", options->output,
                       "Write the report to FILE ('-': standard output); default MODEL.report.html in this folder");
   command->add_option("--format", options->format, "html (default) or md; by default from the output's extension")

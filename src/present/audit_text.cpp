@@ -21,18 +21,6 @@ std::string setting(const Rational& value) { return numeric::to_display(value); 
 constexpr std::size_t changes_shown = 10;
 constexpr std::size_t hard_names_shown = 5;
 
-const model::Label& label_of(const model::Model& model, const Violation& v) {
-  if (v.kind == Violation::Kind::row) return model.rows[static_cast<std::size_t>(v.index)].label;
-  const model::Column& column = model.columns[static_cast<std::size_t>(v.index)];
-  const model::Label& own = v.side == Violation::Side::lower ? column.lower_label : column.upper_label;
-  return own.statement.empty() && own.unit.empty() ? column.label : own;
-}
-
-const std::string& name_of(const model::Model& model, const Violation& v) {
-  return v.kind == Violation::Kind::row ? model.rows[static_cast<std::size_t>(v.index)].name
-                                        : model.columns[static_cast<std::size_t>(v.index)].name;
-}
-
 // "row BENZ, at most", "column ETH, at least".
 std::string which(const model::Model& model, const Violation& v) {
   bool lower = v.side == Violation::Side::lower;
@@ -41,42 +29,56 @@ std::string which(const model::Model& model, const Violation& v) {
     bool equation = row.lower && row.upper && *row.lower == *row.upper;
     return "row " + row.name + (equation ? " (=)" : lower ? " (>=)" : " (<=)");
   }
-  return "column " + name_of(model, v) + (lower ? " lower bound" : " upper bound");
+  return "column " + detail::violation_name(model, v) + (lower ? " lower bound" : " upper bound");
 }
 
-std::string verdict_words(const model::Model& model, const audit::Audit& a, const AuditRequest& request) {
+}  // namespace
+
+std::vector<std::string> audit_verdict_lines(const model::Model& model, const audit::Audit& a,
+                                             const AuditRequest& request) {
   std::size_t missed = a.evaluation.violations.size();
-  std::string words;
+  std::vector<std::string> lines;
   switch (a.verdict) {
     case audit::Verdict::feasible:
-      words = "FEASIBLE exactly: the plan meets every row and bound of the model";
+      lines.push_back("FEASIBLE exactly: the plan meets every row and bound of the model");
       break;
     case audit::Verdict::within_tolerance:
-      words = "NOT FEASIBLE exactly: " + detail::count_of(missed, "side or bound is", "sides or bounds are") +
-              " missed, each within the tolerance " + setting(request.options.tolerance) + " (relative)";
+      lines.push_back(
+          "NOT FEASIBLE exactly: " + detail::count_of(missed, "side or bound is", "sides or bounds are") +
+          " missed, each within the tolerance " + setting(request.options.tolerance) + " (relative)");
       break;
     case audit::Verdict::infeasible:
-      words = "INFEASIBLE: " + detail::count_of(missed, "side or bound is", "sides or bounds are") +
-              " missed, the worst by " + relative(a.evaluation.violations.front().relative) +
-              " relative, beyond the tolerance " + setting(request.options.tolerance);
+      lines.push_back("INFEASIBLE: " + detail::count_of(missed, "side or bound is", "sides or bounds are") +
+                      " missed, the worst by " + relative(a.evaluation.violations.front().relative) +
+                      " relative, beyond the tolerance " + setting(request.options.tolerance));
       break;
   }
   if (!a.hard_crossed.empty()) {
     std::vector<std::string> names;
-    for (std::size_t k : a.hard_crossed) names.push_back(name_of(model, a.evaluation.violations[k]));
-    words += "\n           hard limits crossed, however little: " + detail::name_list(names, hard_names_shown) +
-             " (a hard limit is a law, a contract or physics: a tiny excess is still an excess)";
+    for (std::size_t k : a.hard_crossed)
+      names.push_back(detail::violation_name(model, a.evaluation.violations[k]));
+    lines.push_back("hard limits crossed, however little: " + detail::name_list(names, hard_names_shown) +
+                    " (a hard limit is a law, a contract or physics: a tiny excess is still an excess)");
   }
   switch (a.gap_verdict) {
     case audit::GapVerdict::not_asked: break;
-    case audit::GapVerdict::within: words += "\n           within the gap " + setting(*request.options.gap) + " (relative) of the best possible, proven"; break;
-    case audit::GapVerdict::outside: words += "\n           OUTSIDE the gap " + setting(*request.options.gap) + " (relative) of the best possible"; break;
+    case audit::GapVerdict::within:
+      lines.push_back("within the gap " + setting(*request.options.gap) +
+                      " (relative) of the best possible, proven");
+      break;
+    case audit::GapVerdict::outside:
+      lines.push_back("OUTSIDE the gap " + setting(*request.options.gap) +
+                      " (relative) of the best possible");
+      break;
     case audit::GapVerdict::unknown:
-      if (a.verdict == audit::Verdict::feasible) words += "\n           the gap " + setting(*request.options.gap) + " is not proven either way";
+      if (a.verdict == audit::Verdict::feasible)
+        lines.push_back("the gap " + setting(*request.options.gap) + " is not proven either way");
       break;
   }
-  return words;
+  return lines;
 }
+
+namespace {
 
 void write_findings(const model::Model& model, const audit::Audit& a, std::ostream& out) {
   const auto& violations = a.evaluation.violations;
@@ -90,7 +92,7 @@ void write_findings(const model::Model& model, const audit::Audit& a, std::ostre
                        detail::Table::Align::right, detail::Table::Align::right});
   table.add({"where", "limit", "plan", "missed by", "relative", "statement"});
   for (const Violation& v : violations) {
-    const model::Label& label = label_of(model, v);
+    const model::Label& label = detail::violation_label(model, v);
     std::string unit = label.unit.empty() ? "" : " " + label.unit;
     std::string statement = label.statement;
     if (label.hard.value_or(false)) statement = "HARD: " + statement;
@@ -181,7 +183,9 @@ void write_audit_text(const model::Model& model, const audit::Audit& a, const Au
       << model.column_count() - static_cast<int>(a.plan_missing) << " of " << model.column_count() << " columns named"
       << (a.plan_missing ? "; the " + std::to_string(a.plan_missing) + " not named count as zero" : "") << ")\n";
   if (!request.duals_path.empty()) out << "duals      " << request.duals_path << "\n";
-  out << "verdict    " << verdict_words(model, a, request) << "\n";
+  std::vector<std::string> verdict = audit_verdict_lines(model, a, request);
+  for (std::size_t k = 0; k < verdict.size(); ++k)
+    out << (k == 0 ? "verdict    " : "           ") << verdict[k] << "\n";
   write_findings(model, a, out);
   write_objective(model, a, request, out);
   write_changes(model, a, request, out);

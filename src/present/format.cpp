@@ -110,4 +110,16 @@ nlohmann::json exact_json(const Rational& value) { return numeric::to_fraction(v
 
 nlohmann::json side_json(const model::Side& side) { return side ? exact_json(*side) : nlohmann::json(nullptr); }
 
+const model::Label& violation_label(const model::Model& model, const audit::Violation& v) {
+  if (v.kind == audit::Violation::Kind::row) return model.rows[static_cast<std::size_t>(v.index)].label;
+  const model::Column& column = model.columns[static_cast<std::size_t>(v.index)];
+  const model::Label& own = v.side == audit::Violation::Side::lower ? column.lower_label : column.upper_label;
+  return own.statement.empty() && own.unit.empty() ? column.label : own;
+}
+
+const std::string& violation_name(const model::Model& model, const audit::Violation& v) {
+  return v.kind == audit::Violation::Kind::row ? model.rows[static_cast<std::size_t>(v.index)].name
+                                               : model.columns[static_cast<std::size_t>(v.index)].name;
+}
+
 }  // namespace plumb::present::detail

@@ -1,6 +1,7 @@
 // Internal to present: aligned tables and the number and list wording every rendering shares.
 #pragma once
 
+#include "plumb/audit/evaluate.hpp"
 #include "plumb/health/health.hpp"
 #include "plumb/model/model.hpp"
 #include "plumb/numeric/rational.hpp"
@@ -59,6 +60,11 @@ std::string name_list(const std::vector<std::string>& names, std::size_t shown);
 std::string finding_text(const health::Finding& finding, const health::HealthReport& report);
 
 // JSON forms: an exact number is its canonical fraction text ("-3/2"); an absent side is null.
+// The row or column a plan misses, and the label that speaks for that side: a bound's own label
+// when it has words, else its column's.
+const std::string& violation_name(const model::Model& model, const audit::Violation& v);
+const model::Label& violation_label(const model::Model& model, const audit::Violation& v);
+
 nlohmann::json exact_json(const Rational& value);
 nlohmann::json side_json(const model::Side& side);
 

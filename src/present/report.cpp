@@ -176,6 +176,13 @@ report::Section identity_section(const ReportInput& input) {
     table.rows.push_back({"SHA-256 of the sidecar", "`" + run.labels_file->sha256 + "`"});
     table.rows.push_back({"sidecar size", std::to_string(run.labels_file->bytes) + " bytes"});
   }
+  for (const auto& [what, file] :
+       {std::pair{"plan audited", &run.plan_file}, std::pair{"duals given", &run.duals_file}})
+    if (*file) {
+      table.rows.push_back({what, "`" + (*file)->path + "`"});
+      table.rows.push_back({std::string("SHA-256 of the ") + (what[0] == 'p' ? "plan" : "duals"),
+                            "`" + (*file)->sha256 + "`"});
+    }
   table.rows.push_back({"title", model.title.empty() ? "(untitled)" : model.title});
   table.rows.push_back({"time of the run (UTC)", run.utc_time});
   table.rows.push_back({"plumb version", run.version});
@@ -484,6 +491,7 @@ report::Section conflict_section(const ConflictSection& conflict) {
 
 report::Section audit_section(const AuditSection& audit) {
   std::vector<Block> blocks;
+  if (!audit.plan.empty()) blocks.push_back(report::paragraph("The plan: " + audit.plan + "."));
   blocks.push_back(report::callout("Verdict: " + audit.verdict));
   if (!audit.gap.empty()) blocks.push_back(report::paragraph("Objective gap: " + audit.gap));
   if (!audit.violations.empty()) {
@@ -595,6 +603,48 @@ std::string shell_quoted(const std::string& word) {
   std::string quoted = "'";
   for (char c : word) quoted += c == '\'' ? std::string("'\\''") : std::string(1, c);
   return quoted + "'";
+}
+
+AuditSection audit_section_from(const model::Model& model, const audit::Audit& audit,
+                                const AuditRequest& request, const exact::CertifiedSolution& result) {
+  AuditSection section;
+  section.plan = "`" + request.plan_path + "` (" + request.plan_format + ", " +
+                 std::to_string(static_cast<std::size_t>(model.column_count()) - audit.plan_missing) +
+                 " of " + std::to_string(model.column_count()) + " columns named; the rest count as 0)";
+  for (const std::string& line : audit_verdict_lines(model, audit, request))
+    section.verdict += (section.verdict.empty() ? "" : "; ") + line;
+  const std::string unit = model.objective.label.unit.empty() ? "" : " " + model.objective.label.unit;
+  const bool minimise = model.objective.sense == model::Sense::minimise;
+  const exact::Solution& s = result.solution;
+  section.gap = "the plan's objective is " + value_text(audit.evaluation.objective) + unit;
+  if (result.certified() && s.outcome == exact::Outcome::optimal) {
+    audit::Gap gap = audit::gap_between(model, audit.evaluation.objective, s.objective);
+    if (gap.absolute == 0)
+      section.gap += ", exactly the certified optimum";
+    else if (gap.absolute > 0)
+      section.gap += std::string(", ") + (minimise ? "costing " : "earning ") + value_text(gap.absolute) +
+                     unit + (minimise ? " more" : " less") + " than the certified optimum " +
+                     value_text(s.objective) + unit + " (" + detail::scientific(gap.relative) + " relative)";
+    else
+      section.gap += ", better than the certified optimum " + value_text(s.objective) + unit + " by " +
+                     value_text(-gap.absolute) + unit + ": possible only because the plan misses limits";
+  }
+  if (audit.dual_bound && audit.dual_bound->bound)
+    section.gap += "; the given duals prove no plan " +
+                   std::string(minimise ? "costs less than " : "earns more than ") +
+                   value_text(*audit.dual_bound->bound) + unit + " (a safe bound, computed exactly)";
+  section.tolerance = request.options.tolerance;
+  for (const audit::Violation& v : audit.evaluation.violations) {
+    const model::Label& label = detail::violation_label(model, v);
+    bool lower = v.side == audit::Violation::Side::lower;
+    std::string name =
+        detail::violation_name(model, v) + (v.kind == audit::Violation::Kind::row
+                                                ? (lower ? " (>=)" : " (<=)")
+                                                : (lower ? " (lower bound)" : " (upper bound)"));
+    section.violations.push_back(
+        {name, (label.hard.value_or(false) ? "HARD: " : "") + label.statement, v.amount, label.unit});
+  }
+  return section;
 }
 
 std::optional<ConflictSection> conflict_from_farkas(const model::Model& model, const exact::CertifiedSolution& result) {

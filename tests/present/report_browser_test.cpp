@@ -97,6 +97,7 @@ struct Demo {
   const char* model;
   const char* report;
   std::vector<std::string> expected;  // text the rendered page must hold
+  std::vector<std::string> options = {};  // further options of plumb report
 };
 
 class ReportBrowser : public ::testing::Test {
@@ -118,21 +119,32 @@ TEST_F(ReportBrowser, DemoReportsRenderWithTheirSectionsNumbersAndPicturesAndFet
   // The numbers: the corpus README's worked optimum (218 176 400/237 USD) and the binding limits it
   // names; the tight model's vapour-pressure conflict, as its header comment works it out by hand.
   const std::vector<Demo> demos = {
-      {"summer-blend.plumb", "summer-blend.report.html",
+      {"summer-blend.plumb",
+       "summer-blend.report.html",
        {"What was analysed", "The formulation", "Formulation decisions", "The result and its proof",
         "How to check it again", "Cautions", "OPTIMAL", "218176400/237", "vapour_pressure", "(at the limit)",
         "blending engineer", "summer volatility rule, clause 4 (invented)", "licensed practice"}},
-      {"summer-blend-tight.plumb", "summer-blend-tight.report.html",
+      {"summer-blend-tight.plumb",
+       "summer-blend-tight.report.html",
        {"What was analysed", "INFEASIBLE", "Why no plan exists", "vapour_pressure", "Farkas", "Ways out",
         "licensed practice"}},
-      {"summer-blend.mps", "summer-blend-mps.report.html",
-       {"What was analysed", "OPTIMAL", "218176400/237", "RVP", "summer-blend.labels.csv", "terminal planner"}},
+      {"summer-blend.mps",
+       "summer-blend-mps.report.html",
+       {"What was analysed", "OPTIMAL", "218176400/237", "RVP", "summer-blend.labels.csv",
+        "terminal planner"}},
+      // The demo plan as another solver rounded it: 7/12500 psi-bbl over the vapour-pressure cap.
+      {"summer-blend.mps",
+       "summer-blend-plan.report.html",
+       {"The plan audit", "NOT FEASIBLE exactly", "7/12500 (0.00056) psi-bbl", "tolerance 1e-6",
+        "SHA-256 of the plan"},
+       {"--plan", corpus + "/summer-blend.plan.txt"}},
   };
   for (const Demo& demo : demos) {
     SCOPED_TRACE(demo.model);
     fs::path report = work_ / demo.report;
-    auto made = plumb::test::run(PLUMB_EXECUTABLE, {"report", corpus + "/" + demo.model, "-o", report.string()},
-                                 std::chrono::seconds(120));
+    std::vector<std::string> arguments = {"report", corpus + "/" + demo.model, "-o", report.string()};
+    arguments.insert(arguments.end(), demo.options.begin(), demo.options.end());
+    auto made = plumb::test::run(PLUMB_EXECUTABLE, arguments, std::chrono::seconds(120));
     ASSERT_EQ(made.status, 0) << made.err;
 
     fs::path net_log = work_ / (report.stem().string() + ".netlog.json");

@@ -34,7 +34,13 @@ struct Analysed {
     input.model = &model;
     input.health = &health;
     input.result = &result;
-    input.run = {"plumb report test", "2026-12-02T12:00:00Z", "0.test", {model.source.path, model.source.sha256, 1234}, {}};
+    input.run = {"plumb report test",
+                 "2026-12-02T12:00:00Z",
+                 "0.test",
+                 {model.source.path, model.source.sha256, 1234},
+                 {},
+                 {},
+                 {}};
     if (result.solution.outcome != plumb::exact::Outcome::stopped) {
       input.certificate.text = plumb::certificate::to_json_text(result.certificate);
       input.certificate.sha256 = plumb::model::sha256_hex(input.certificate.text);
@@ -158,11 +164,12 @@ TEST(Report, LongModelsCollapseToASummaryAndAnAppendix) {
 // The seams: plain structs that plumb explain and plumb audit fill render as their sections.
 TEST(Report, AuditSectionRendersFromItsStruct) {
   Analysed a(plumb::model::read_model(corpus + "/summer-blend.plumb"));
-  a.input.audit = plumb::present::AuditSection{
-      "not signed off: two requirements missed",
-      "the plan costs 3/2 USD more than the optimum",
-      Rational(1, 1000000),
-      {{"benzene", "benzene at most 1.0 %", Rational(1, 4), "%-bbl"}, {"octane", "", Rational(3, 100000000), ""}}};
+  a.input.audit = plumb::present::AuditSection{"not signed off: two requirements missed",
+                                               "the plan costs 3/2 USD more than the optimum",
+                                               Rational(1, 1000000),
+                                               {{"benzene", "benzene at most 1.0 %", Rational(1, 4), "%-bbl"},
+                                                {"octane", "", Rational(3, 100000000), ""}},
+                                               "plan.csv (csv, 5 of 5 columns named)"};
   std::string html = a.write(ReportFormat::html);
   EXPECT_TRUE(has(html, "<section id=\"audit\">"));
   EXPECT_TRUE(has(html, "not signed off: two requirements missed"));
@@ -199,7 +206,7 @@ TEST(ReportSvg, ClipNeverCutsACharacterInTwo) {
 }
 
 // The command: a file, a certificate beside a Markdown report that plumb check accepts, the exact
-// command recorded, and --plan refused plainly until the plan audit lands.
+// command recorded; a plan audited beside the solve, and a bad plan refused before anything is written.
 TEST(ReportCommand, WritesTheReportAndTheCertificateBesideMarkdown) {
   fs::path work = fs::path(PLUMB_BUILD_DIR) / "report-command";
   fs::remove_all(work);
@@ -215,10 +222,27 @@ TEST(ReportCommand, WritesTheReportAndTheCertificateBesideMarkdown) {
   ASSERT_TRUE(fs::exists(work / "r.certificate.json"));
   auto check = plumb::test::run(PLUMB_EXECUTABLE, {"check", model, (work / "r.certificate.json").string(), "--expect", "optimal"});
   EXPECT_EQ(check.status, 0) << check.out << check.err;
-  auto plan = plumb::test::run(PLUMB_EXECUTABLE, {"report", model, "--plan", "plan.json", "-o", (work / "p.html").string()});
-  EXPECT_EQ(plan.status, 1);
-  EXPECT_TRUE(has(plan.err, "no plan audit yet")) << plan.err;
+  auto missing = plumb::test::run(PLUMB_EXECUTABLE, {"report", model, "--plan", (work / "none.json").string(),
+                                                     "-o", (work / "p.html").string()});
+  EXPECT_EQ(missing.status, 1);
+  EXPECT_TRUE(has(missing.err, "none.json")) << missing.err;
   EXPECT_FALSE(fs::exists(work / "p.html"));
+  auto duals_alone = plumb::test::run(
+      PLUMB_EXECUTABLE,
+      {"report", model, "--duals", corpus + "/summer-blend.plan.txt", "-o", (work / "p.html").string()});
+  EXPECT_EQ(duals_alone.status, 1);
+  EXPECT_FALSE(fs::exists(work / "p.html"));
+  // The demo plan (corpus/summer-blend.plan.txt, invented): rounded by another solver, it exceeds
+  // the vapour-pressure cap by 7/12500 psi-bbl, as its audit in the README shows.
+  auto audited = plumb::test::run(PLUMB_EXECUTABLE, {"report", corpus + "/summer-blend.mps", "--plan",
+                                                     corpus + "/summer-blend.plan.txt", "-o", "-"});
+  ASSERT_EQ(audited.status, 0) << audited.err;
+  EXPECT_TRUE(has(audited.out, "<section id=\"audit\">"));
+  EXPECT_TRUE(has(audited.out, "NOT FEASIBLE exactly"));
+  EXPECT_TRUE(has(audited.out, "hard limits crossed, however little: RVP"));
+  EXPECT_TRUE(has(audited.out, "7/12500 (0.00056) psi-bbl"));
+  EXPECT_TRUE(has(audited.out, "better than the certified optimum 218176400/237"));
+  EXPECT_TRUE(has(audited.out, "SHA-256 of the plan"));
   auto infeasible = plumb::test::run(PLUMB_EXECUTABLE, {"report", corpus + "/summer-blend-tight.plumb", "-o", "-"});
   EXPECT_EQ(infeasible.status, 0) << infeasible.err;
   EXPECT_TRUE(has(infeasible.out, "Why no plan exists"));

@@ -9,6 +9,7 @@
 
 #include <iosfwd>
 #include <string>
+#include <vector>
 
 namespace plumb::present {
 
@@ -20,6 +21,11 @@ struct AuditRequest {
   std::string repaired_path;  // empty when none was written
   audit::AuditOptions options;
 };
+
+// The verdict in words: feasible or not (and within the tolerance or not), the hard limits crossed,
+// the gap verdict when a gap was asked; one line each, the verdict first.
+std::vector<std::string> audit_verdict_lines(const model::Model& model, const audit::Audit& result,
+                                             const AuditRequest& request);
 
 // The verdict in words, the findings table (largest relative miss first, with the owner's
 // statement and unit), the objective against the claimed value, the optimum and the gaps, the

@@ -4,6 +4,7 @@
 #include "plumb/exact/solve.hpp"
 #include "plumb/health/health.hpp"
 #include "plumb/model/model.hpp"
+#include "plumb/present/audit.hpp"
 #include "plumb/present/caution.hpp"
 
 #include <cstdint>
@@ -32,6 +33,8 @@ struct ReportRun {
   std::string version;   // plumb's version
   ReportFile model_file;
   std::optional<ReportFile> labels_file;
+  std::optional<ReportFile> plan_file;   // with --plan
+  std::optional<ReportFile> duals_file;  // with --duals
 };
 
 // The certificate as written: its exact bytes, their SHA-256, and where a sibling copy went.
@@ -74,6 +77,7 @@ struct AuditSection {
   std::string gap;  // the objective gap in words, exact
   Rational tolerance;
   std::vector<AuditViolation> violations;
+  std::string plan;  // what was audited, e.g. "plan.csv (csv, 5 of 5 columns named)"
 };
 
 struct ReportInput {
@@ -93,6 +97,12 @@ constexpr int report_listed_rows = 60;
 // The conflict of an infeasible result as the solve proved it: the rows and bounds that carry a
 // Farkas multiplier, their terms and the weighted sum in words.  Empty unless infeasible.
 std::optional<ConflictSection> conflict_from_farkas(const model::Model& model, const exact::CertifiedSolution& result);
+
+// The audit section of a plan audited beside the report's solve (plumb report --plan): the
+// verdict lines, the plan's objective against the certified optimum, the duals' safe bound when
+// duals were given, and every miss with its owner's statement and unit.
+AuditSection audit_section_from(const model::Model& model, const audit::Audit& audit,
+                                const AuditRequest& request, const exact::CertifiedSolution& result);
 
 // A word as a POSIX shell reads it back: unchanged when plain, else in single quotes.
 std::string shell_quoted(const std::string& word);
