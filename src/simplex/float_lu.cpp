@@ -7,6 +7,7 @@ namespace plumb::simplex {
 
 struct FloatLu::Factors {
   detail::BasisFactor lu;
+  detail::BasisFactor::Singularity singular;
 };
 
 FloatLu::FloatLu() : factors_(std::make_unique<Factors>()) {}
@@ -20,7 +21,16 @@ bool FloatLu::factorize(int m, FloatColumns columns, double pivot_floor) {
   moved.index = std::move(columns.index);
   moved.value = std::move(columns.value);
   factors_->lu.absolute_tolerance = pivot_floor;
-  return factors_->lu.factorize(m, moved).empty();
+  factors_->singular = factors_->lu.factorize(m, moved);
+  return factors_->singular.empty();
+}
+
+std::vector<std::pair<int, int>> FloatLu::unpivoted() const {
+  const auto& singular = factors_->singular;
+  std::vector<std::pair<int, int>> pairs;
+  for (std::size_t k = 0; k < singular.positions.size() && k < singular.rows.size(); ++k)
+    pairs.emplace_back(singular.positions[k], singular.rows[k]);
+  return pairs;
 }
 
 void FloatLu::solve(std::vector<double>& x) const { factors_->lu.ftran(x); }

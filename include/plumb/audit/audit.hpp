@@ -69,7 +69,9 @@ struct Audit {
 
 // The basis a plan suggests: a column strictly inside its bounds is basic, one at a bound (within
 // the tolerance, relative) rests there; a row meeting a side (likewise) has its logical there,
-// otherwise its logical is basic; then fitted to one basic variable per row.
+// otherwise its logical is basic; then fitted to one basic variable per row and completed by the
+// float LU into a regular basis (run_audit guesses at 1e-3 relative, or the audit's tolerance
+// when larger).
 simplex::Basis guess_basis(const model::Model& model, const std::vector<Rational>& x, const Evaluation& evaluation,
                            const Rational& tolerance);
 

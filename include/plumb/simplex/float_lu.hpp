@@ -3,6 +3,7 @@
 #pragma once
 
 #include <memory>
+#include <utility>
 #include <vector>
 
 namespace plumb::simplex {
@@ -32,6 +33,9 @@ class FloatLu {
   // Factorizes B, whose k-th column is columns' column k, counting pivots below `pivot_floor` in
   // magnitude as zero.  False when B is singular to that floor; solves are then not allowed.
   bool factorize(int m, FloatColumns columns, double pivot_floor);
+  // After a failed factorize: the positions and rows left unpivoted, paired.  Putting the logical
+  // of each such row (a unit column) at its paired position makes the matrix regular.
+  std::vector<std::pair<int, int>> unpivoted() const;
   // x <- B^-1 x (x indexed by row on entry, by column on return).
   void solve(std::vector<double>& x) const;
   // y <- B^-T y (y indexed by column on entry, by row on return).
