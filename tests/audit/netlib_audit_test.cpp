@@ -192,8 +192,9 @@ RoundedAudit audit_rounded_optimum(const std::string& name) {
   for (std::size_t j = 0; j < x.size(); ++j) x[j] = rounded(solved.solution.x[j], 6);
   r.audit = run_audit(r.model, plan_of(x), {});
   EXPECT_TRUE(r.audit.optimum && r.audit.optimum->certified());
-  if (r.audit.optimum)
+  if (r.audit.optimum) {
     EXPECT_TRUE(agrees_to_every_digit(r.audit.optimum->solution.objective, koch_optima()[name]));
+  }
   return r;
 }
 
