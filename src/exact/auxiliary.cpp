@@ -94,7 +94,7 @@ AuxiliaryOptimum certified_optimum(const model::Model& auxiliary, const SolveOpt
   AuxiliaryOptimum optimum{simplex::solve_float(auxiliary, search), std::nullopt};
   stats.auxiliary_iterations += optimum.found.iterations;
   if (optimum.found.status != simplex::FloatStatus::optimal) return optimum;
-  Engine engine(auxiliary, options.budget, &options.progress);
+  RationalEngine engine(auxiliary, options.budget, &options.progress);
   simplex::Basis basis = optimum.found.basis;
   if (certify_with_corrections(engine, auxiliary, options, basis, stats)) optimum.exact = engine.run();
   return optimum;

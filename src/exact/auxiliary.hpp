@@ -15,10 +15,10 @@ namespace plumb::exact::detail {
 // The float search's progress, reported as the solve's, each phase name after `prefix`.
 std::function<void(const simplex::FloatProgress&)> float_progress(const SolveOptions& options, const std::string& prefix);
 
-// Certifies `basis` as optimal for `model` by refinement (Engine::certify_by_refinement),
+// Certifies `basis` as optimal for `model` by refinement (RationalEngine::certify_by_refinement),
 // correcting it by float re-solves of the correction problem as needed; `basis` ends as the last
 // one tried.  True when certified: engine.run() then reports the optimum.
-bool certify_with_corrections(Engine& engine, const model::Model& model, const SolveOptions& options,
+bool certify_with_corrections(RationalEngine& engine, const model::Model& model, const SolveOptions& options,
                               simplex::Basis& basis, SolveStats& stats);
 
 // When the float search ends infeasible at `basis`: the least-infeasibility LP (every row may be

@@ -37,7 +37,8 @@ double quotient(const Integer& a, const Integer& b, const Integer& c) {
 
 }  // namespace
 
-Engine::Engine(const model::Model& model, run::Budget* budget, const std::function<void(const Progress&)>* progress)
+RationalEngine::RationalEngine(const model::Model& model, run::Budget* budget,
+                               const std::function<void(const Progress&)>* progress)
     : model_(model), budget_(budget), progress_(progress), n_(model.column_count()), m_(model.row_count()) {
   factor_.budget = budget;
   lower_.resize(static_cast<std::size_t>(total()));
@@ -82,7 +83,7 @@ Engine::Engine(const model::Model& model, run::Budget* budget, const std::functi
   cost_estimate_of_basis_.assign(static_cast<std::size_t>(m_), 0.0);
 }
 
-void Engine::scatter_column(int k, SparseVector& target) const {
+void RationalEngine::scatter_column(int k, RationalSparseVector& target) const {
   if (k >= n_) {
     target.at(k - n_) = -1;
     return;
@@ -93,7 +94,7 @@ void Engine::scatter_column(int k, SparseVector& target) const {
 }
 
 // Puts a nonbasic variable at the bound asked for when it exists, else at the other, else zero.
-void Engine::rest_nonbasic(int k, VarStatus wanted) {
+void RationalEngine::rest_nonbasic(int k, VarStatus wanted) {
   position_[k] = -1;
   if (wanted == VarStatus::at_upper && !upper_[k]) wanted = VarStatus::at_lower;
   if ((wanted == VarStatus::at_lower || wanted == VarStatus::at_zero || wanted == VarStatus::basic) && !lower_[k])
@@ -107,7 +108,7 @@ void Engine::rest_nonbasic(int k, VarStatus wanted) {
 }
 
 // Column k of [A | -I]: a model column, or the logical of row k - n.
-SparseColumn Engine::constraint_column(int k) const {
+SparseColumn RationalEngine::constraint_column(int k) const {
   SparseColumn column;
   if (k >= n_) {
     column.rows = {k - n_};
@@ -121,7 +122,7 @@ SparseColumn Engine::constraint_column(int k) const {
   return column;
 }
 
-void Engine::refactor() {
+void RationalEngine::refactor() {
   std::vector<SparseColumn> columns(static_cast<std::size_t>(m_));
   for (int p = 0; p < m_; ++p) columns[p] = constraint_column(head_[p]);
   factor_.factorize(m_, columns);
@@ -129,7 +130,7 @@ void Engine::refactor() {
 }
 
 // Factorizes the given basic variables; dependent ones leave, logicals of uncovered rows enter.
-bool Engine::install_basis(std::vector<int> basic_variables) {
+bool RationalEngine::install_basis(std::vector<int> basic_variables) {
   // Storage for pivots, which a basis certified by refinement never needs.
   if (alpha_.size() != m_) alpha_.resize(m_);
   if (pivot_row_.size() != total()) pivot_row_.resize(total());
@@ -161,7 +162,7 @@ bool Engine::install_basis(std::vector<int> basic_variables) {
   return repaired;
 }
 
-void Engine::start_from_logicals() {
+void RationalEngine::start_from_logicals() {
   std::fill(position_.begin(), position_.end(), -1);
   for (int j = 0; j < n_; ++j) rest_nonbasic(j, VarStatus::at_lower);
   std::vector<int> logicals(static_cast<std::size_t>(m_));
@@ -169,11 +170,11 @@ void Engine::start_from_logicals() {
   install_basis(std::move(logicals));
 }
 
-bool Engine::fits(const simplex::Basis& basis) const {
+bool RationalEngine::fits(const simplex::Basis& basis) const {
   return basis.columns.size() == static_cast<std::size_t>(n_) && basis.rows.size() == static_cast<std::size_t>(m_);
 }
 
-std::vector<int> Engine::rest_as_in(const simplex::Basis& basis) {
+std::vector<int> RationalEngine::rest_as_in(const simplex::Basis& basis) {
   std::fill(position_.begin(), position_.end(), -1);
   std::vector<int> basic_variables;
   for (int k = 0; k < total(); ++k) {
@@ -184,7 +185,7 @@ std::vector<int> Engine::rest_as_in(const simplex::Basis& basis) {
   return basic_variables;
 }
 
-bool Engine::start_from(const simplex::Basis& basis) {
+bool RationalEngine::start_from(const simplex::Basis& basis) {
   settled_.reset();
   if (!fits(basis)) {
     start_from_logicals();
@@ -195,7 +196,8 @@ bool Engine::start_from(const simplex::Basis& basis) {
   return repaired_;
 }
 
-bool Engine::certify_by_refinement(const simplex::Basis& basis, simplex::CorrectionProblem* correction) {
+bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
+                                           simplex::CorrectionProblem* correction) {
   settled_.reset();
   if (!fits(basis)) return false;
   head_ = rest_as_in(basis);
@@ -289,7 +291,8 @@ bool Engine::certify_by_refinement(const simplex::Basis& basis, simplex::Correct
 // variable is about one, and costs are the reduced costs scaled by 2^d so that the largest wrong
 // sign is about one (Gleixner, Steffy & Wolter 2016).  The scales are capped so that the rest of
 // the problem stays within double range.
-simplex::CorrectionProblem Engine::correction_problem(const std::vector<double>& reduced_costs) const {
+simplex::CorrectionProblem RationalEngine::correction_problem(
+    const std::vector<double>& reduced_costs) const {
   double primal_violation = 0, dual_violation = 0;
   for (int k : head_) {
     if (below(k)) primal_violation = std::max(primal_violation, numeric::to_double(Rational(*lower_[k] - value_[k])));
@@ -317,7 +320,7 @@ simplex::CorrectionProblem Engine::correction_problem(const std::vector<double>&
 }
 
 // target = -N x_N, the right-hand side of B x_B = -N x_N for the system A x - r = 0.
-void Engine::nonbasic_activity(SparseVector& target) {
+void RationalEngine::nonbasic_activity(RationalSparseVector& target) {
   target.clear();
   for (int k = 0; k < total(); ++k) {
     if (basic(k) || is_zero(value_[k])) continue;
@@ -331,21 +334,21 @@ void Engine::nonbasic_activity(SparseVector& target) {
   }
 }
 
-void Engine::compute_basic_values() {
+void RationalEngine::compute_basic_values() {
   nonbasic_activity(rows_);
   factor_.ftran(rows_, positions_);
   for (int p = 0; p < m_; ++p) value_[head_[p]] = positions_[p];
   positions_.clear();
 }
 
-bool Engine::infeasible_basis() const {
+bool RationalEngine::infeasible_basis() const {
   for (int k : head_)
     if (below(k) || above(k)) return true;
   return false;
 }
 
 // y solves B^T y = c_B, with the phase-1 costs (-1 below a bound, +1 above) or c'.
-void Engine::compute_duals(bool phase_one) {
+void RationalEngine::compute_duals(bool phase_one) {
   positions_.clear();
   for (int p = 0; p < m_; ++p) {
     int k = head_[p];
@@ -360,7 +363,7 @@ void Engine::compute_duals(bool phase_one) {
 }
 
 // d_k = c_k - M_k^T y (phase-1 costs of nonbasic variables are zero).
-void Engine::reduced_cost(int k, bool phase_one, Rational& out) {
+void RationalEngine::reduced_cost(int k, bool phase_one, Rational& out) {
   if (k >= n_) {
     out = duals_[k - n_];
     return;
@@ -375,9 +378,9 @@ void Engine::reduced_cost(int k, bool phase_one, Rational& out) {
   }
 }
 
-bool Engine::eligible(int k, const Rational& d) const { return eligible_sign(k, sign_of(d)); }
+bool RationalEngine::eligible(int k, const Rational& d) const { return eligible_sign(k, sign_of(d)); }
 
-bool Engine::eligible_sign(int k, int sign) const {
+bool RationalEngine::eligible_sign(int k, int sign) const {
   if (fixed_[k]) return false;
   switch (status_[k]) {
     case VarStatus::at_lower: return sign < 0;
@@ -391,7 +394,7 @@ bool Engine::eligible_sign(int k, int sign) const {
 // Calls visit(j, rows, entry) for every column j that may enter (nonbasic, not fixed), with its
 // row indices and the position of its first entry in column order (in matrix_estimate_).
 template <class Visit>
-void Engine::for_each_priced_column(Visit&& visit) const {
+void RationalEngine::for_each_priced_column(Visit&& visit) const {
   std::size_t entry = 0;
   for (int j = 0; j < n_; ++j) {
     auto rows = model_.matrix.column_rows(j);
@@ -402,8 +405,8 @@ void Engine::for_each_priced_column(Visit&& visit) const {
 
 // sum = D_j Q d_j = D_j c'_j Q - sum_i (D_j a_ij) P_i for y = P / Q, with scale_ = D_j the least
 // common denominator of column j and its cost: integer products without a gcd each.
-void Engine::exact_reduced_cost(int j, const std::vector<Integer>& numerators, const Integer& denominator,
-                                Integer& sum) {
+void RationalEngine::exact_reduced_cost(int j, const std::vector<Integer>& numerators,
+                                        const Integer& denominator, Integer& sum) {
   auto rows = model_.matrix.column_rows(j);
   auto values = model_.matrix.column_values(j);
   mpz_ptr scale = scale_.backend().data();
@@ -422,7 +425,7 @@ void Engine::exact_reduced_cost(int j, const std::vector<Integer>& numerators, c
   }
 }
 
-bool Engine::poll(const char* phase) {
+bool RationalEngine::poll(const char* phase) {
   phase_ = phase;
   if (budget_ && budget_->exhausted()) return false;
   if (progress_ && *progress_ && iterations_ % 50 == 0) {
@@ -448,7 +451,7 @@ bool Engine::poll(const char* phase) {
 
 // The basic variable at leaving_position leaves at the given bound; `entering` takes its place.
 // alpha_ must hold B^{-1} times the entering column.
-void Engine::exchange(int entering, int leaving_position, VarStatus leaving_status) {
+void RationalEngine::exchange(int entering, int leaving_position, VarStatus leaving_status) {
   int leaving = head_[leaving_position];
   status_[leaving] = leaving_status;
   position_[leaving] = -1;
@@ -461,7 +464,7 @@ void Engine::exchange(int entering, int leaving_position, VarStatus leaving_stat
 
 // Counts a pivot.  After degenerate_run_limit degenerate pivots in a row the choices follow
 // Bland's rule until one makes progress.
-void Engine::count_pivot(bool degenerate) {
+void RationalEngine::count_pivot(bool degenerate) {
   ++iterations_;
   if (!degenerate) {
     degenerate_run_ = 0;
@@ -471,55 +474,123 @@ void Engine::count_pivot(bool degenerate) {
   }
 }
 
-Engine::Step Engine::primal() {
+// Pricing by Dantzig's rule on double estimates of the duals; each candidate's reduced cost is
+// then computed exactly from its column, d_q = c_q - c_B^T (B^{-1} a_q).  The first of the
+// best estimates whose exact reduced cost is eligible enters (its column in alpha_, its reduced
+// cost in d_); -1 when none of them is.
+int RationalEngine::price_by_estimates(bool phase_one, std::vector<std::pair<double, int>>& candidates) {
+  for (int p = 0; p < m_; ++p) {
+    int k = head_[p];
+    cost_estimate_of_basis_[p] = phase_one ? (below(k) ? -1.0 : above(k) ? 1.0 : 0.0) : cost_estimate_[k];
+  }
+  factor_.estimate_btran(cost_estimate_of_basis_, dual_estimate_);
+  candidates.clear();
+  for_each_priced_column([&](int j, std::span<const int> rows, std::size_t entry) {
+    double d = phase_one ? 0.0 : cost_estimate_[j];
+    for (int r : rows) d -= matrix_estimate_[entry++] * dual_estimate_[r];
+    if (improving_estimate(j, d)) candidates.emplace_back(-std::abs(d), j);
+  });
+  for (int i = 0; i < m_; ++i)
+    if (!basic(n_ + i) && !fixed_[n_ + i] && improving_estimate(n_ + i, dual_estimate_[i]))
+      candidates.emplace_back(-std::abs(dual_estimate_[i]), n_ + i);
+  std::size_t tries = std::min<std::size_t>(candidates.size(), pricing_tries);
+  std::partial_sort(candidates.begin(), candidates.begin() + static_cast<long>(tries), candidates.end());
+  for (std::size_t c = 0; c < tries; ++c) {
+    int k = candidates[c].second;
+    entering_column(k);
+    reduced_cost_from_column(k, phase_one, d_);
+    if (eligible(k, d_)) return k;
+  }
+  return -1;
+}
+
+// Exact pricing over every nonbasic variable: the lowest eligible index under Bland's rule, else
+// the largest |d|; its reduced cost in d_.  -1 when none is eligible (the duals are then in duals_).
+int RationalEngine::price_exactly(bool phase_one) {
+  compute_duals(phase_one);
+  int entering = -1;
+  double best = -1;
+  for (int k = 0; k < total(); ++k) {
+    if (basic(k) || fixed_[k]) continue;
+    reduced_cost(k, phase_one, ratio_);
+    if (!eligible(k, ratio_)) continue;
+    if (bland_) {
+      d_ = ratio_;
+      return k;
+    }
+    double size = std::abs(numeric::to_double(ratio_));
+    if (size > best) best = size, entering = k, d_ = ratio_;
+  }
+  return entering;
+}
+
+// Ratio test, exact, for `entering` moving in `direction`: the basic variable at position p moves
+// by -direction * alpha_p per unit.  A feasible one blocks at the bound it moves towards; an
+// infeasible one blocks where it becomes feasible (the first breakpoint of the phase-1 objective)
+// and never while moving away.  The step length is left in best_ratio_ (unsigned).
+RationalEngine::PrimalBlock RationalEngine::primal_ratio_test(int entering, int direction) {
+  PrimalBlock block;
+  double leaving_size = 0;
+  int leaving_index = 0;
+  if (lower_[entering] && upper_[entering]) {
+    best_ratio_ = *upper_[entering] - *lower_[entering];
+    block.bounded = block.flip = true;
+    leaving_index = entering;
+  }
+  for (int p : alpha_.pattern()) {
+    const Rational& a = alpha_[p];
+    int s = sign_of(a);
+    if (s == 0) continue;
+    int k = head_[p];
+    bool increasing = (s < 0) == (direction > 0);
+    const Rational* bound = nullptr;
+    VarStatus side;
+    if (increasing) {
+      if (below(k))
+        bound = lower_[k], side = VarStatus::at_lower;
+      else if (!above(k) && upper_[k])
+        bound = upper_[k], side = VarStatus::at_upper;
+      if (!bound) continue;
+      ratio_ = *bound - value_[k];
+    } else {
+      if (above(k))
+        bound = upper_[k], side = VarStatus::at_upper;
+      else if (!below(k) && lower_[k])
+        bound = lower_[k], side = VarStatus::at_lower;
+      if (!bound) continue;
+      ratio_ = value_[k] - *bound;
+    }
+    mpq_div(ratio_.backend().data(), ratio_.backend().data(), a.backend().data());
+    if (s < 0) ratio_ = -ratio_;
+    int compare = block.bounded ? ratio_.compare(best_ratio_) : -1;
+    bool take = compare < 0;
+    if (compare == 0) {
+      if (bland_)
+        take = k < leaving_index;
+      else
+        take = !block.flip && std::abs(numeric::to_double(a)) > leaving_size;
+    }
+    if (take) {
+      best_ratio_.backend().swap(ratio_.backend());
+      block.bounded = true;
+      block.flip = false;
+      block.position = p;
+      block.status = side;
+      leaving_size = std::abs(numeric::to_double(a));
+      leaving_index = k;
+    }
+  }
+  return block;
+}
+
+RationalEngine::Step RationalEngine::primal() {
   std::vector<std::pair<double, int>> candidates;
   for (;;) {
     bool phase_one = infeasible_basis();
     if (!poll(phase_one ? "exact primal phase 1" : "exact primal")) return Step::stopped;
-
-    // Pricing: Dantzig's rule on double estimates of the duals; each candidate's reduced cost is
-    // then computed exactly from its column, d_q = c_q - c_B^T (B^{-1} a_q).
-    int entering = -1;
-    if (!bland_) {
-      for (int p = 0; p < m_; ++p) {
-        int k = head_[p];
-        cost_estimate_of_basis_[p] = phase_one ? (below(k) ? -1.0 : above(k) ? 1.0 : 0.0) : cost_estimate_[k];
-      }
-      factor_.estimate_btran(cost_estimate_of_basis_, dual_estimate_);
-      candidates.clear();
-      for_each_priced_column([&](int j, std::span<const int> rows, std::size_t entry) {
-        double d = phase_one ? 0.0 : cost_estimate_[j];
-        for (int r : rows) d -= matrix_estimate_[entry++] * dual_estimate_[r];
-        if (improving_estimate(j, d)) candidates.emplace_back(-std::abs(d), j);
-      });
-      for (int i = 0; i < m_; ++i)
-        if (!basic(n_ + i) && !fixed_[n_ + i] && improving_estimate(n_ + i, dual_estimate_[i]))
-          candidates.emplace_back(-std::abs(dual_estimate_[i]), n_ + i);
-      std::size_t tries = std::min<std::size_t>(candidates.size(), pricing_tries);
-      std::partial_sort(candidates.begin(), candidates.begin() + static_cast<long>(tries), candidates.end());
-      for (std::size_t c = 0; c < tries && entering < 0; ++c) {
-        int k = candidates[c].second;
-        entering_column(k);
-        reduced_cost_from_column(k, phase_one, d_);
-        if (eligible(k, d_)) entering = k;
-      }
-    }
+    int entering = bland_ ? -1 : price_by_estimates(phase_one, candidates);
     if (entering < 0) {
-      // Exact scan: the lowest eligible index under Bland's rule, else the largest |d|.
-      compute_duals(phase_one);
-      double best = -1;
-      for (int k = 0; k < total(); ++k) {
-        if (basic(k) || fixed_[k]) continue;
-        reduced_cost(k, phase_one, ratio_);
-        if (!eligible(k, ratio_)) continue;
-        if (bland_) {
-          entering = k;
-          d_ = ratio_;
-          break;
-        }
-        double size = std::abs(numeric::to_double(ratio_));
-        if (size > best) best = size, entering = k, d_ = ratio_;
-      }
+      entering = price_exactly(phase_one);
       if (entering < 0) {
         if (phase_one) {
           farkas_.assign(static_cast<std::size_t>(m_), Rational(0));
@@ -534,57 +605,8 @@ Engine::Step Engine::primal() {
                           : status_[entering] == VarStatus::at_upper ? -1
                           : sign_of(d_) < 0                          ? 1
                                                                      : -1;
-    // Ratio test, exact.  Basic variable at position p moves by -direction * alpha_p per unit.
-    // A feasible one blocks at the bound it moves towards; an infeasible one blocks where it
-    // becomes feasible (the first breakpoint of the phase-1 objective) and never while moving away.
-    int leaving_position = -1;
-    VarStatus leaving_status = VarStatus::at_lower;
-    bool bounded = false, flip = false;
-    double leaving_size = 0;
-    int leaving_index = 0;
-    if (lower_[entering] && upper_[entering]) {
-      best_ratio_ = *upper_[entering] - *lower_[entering];
-      bounded = flip = true;
-      leaving_index = entering;
-    }
-    for (int p : alpha_.pattern()) {
-      const Rational& a = alpha_[p];
-      int s = sign_of(a);
-      if (s == 0) continue;
-      int k = head_[p];
-      bool increasing = (s < 0) == (direction > 0);
-      const Rational* bound = nullptr;
-      VarStatus side;
-      if (increasing) {
-        if (below(k)) bound = lower_[k], side = VarStatus::at_lower;
-        else if (!above(k) && upper_[k]) bound = upper_[k], side = VarStatus::at_upper;
-        if (!bound) continue;
-        ratio_ = *bound - value_[k];
-      } else {
-        if (above(k)) bound = upper_[k], side = VarStatus::at_upper;
-        else if (!below(k) && lower_[k]) bound = lower_[k], side = VarStatus::at_lower;
-        if (!bound) continue;
-        ratio_ = value_[k] - *bound;
-      }
-      mpq_div(ratio_.backend().data(), ratio_.backend().data(), a.backend().data());
-      if (s < 0) ratio_ = -ratio_;
-      int compare = bounded ? ratio_.compare(best_ratio_) : -1;
-      bool take = compare < 0;
-      if (compare == 0) {
-        if (bland_) take = k < leaving_index;
-        else take = !flip && std::abs(numeric::to_double(a)) > leaving_size;
-      }
-      if (take) {
-        best_ratio_.backend().swap(ratio_.backend());
-        bounded = true;
-        flip = false;
-        leaving_position = p;
-        leaving_status = side;
-        leaving_size = std::abs(numeric::to_double(a));
-        leaving_index = k;
-      }
-    }
-    if (!bounded) {
+    PrimalBlock block = primal_ratio_test(entering, direction);
+    if (!block.bounded) {
       if (phase_one) throw std::logic_error("exact simplex: phase 1 ray without a blocking variable");
       set_ray(entering, direction);
       return Step::unbounded;
@@ -596,16 +618,16 @@ Engine::Step Engine::primal() {
       for (int p : alpha_.pattern())
         if (!is_zero(alpha_[p])) subtract_product(value_[head_[p]], alpha_[p], best_ratio_, scratch_);
     }
-    if (flip) {
+    if (block.flip) {
       status_[entering] = direction > 0 ? VarStatus::at_upper : VarStatus::at_lower;
       value_[entering] = direction > 0 ? *upper_[entering] : *lower_[entering];
     } else {
-      exchange(entering, leaving_position, leaving_status);
+      exchange(entering, block.position, block.status);
     }
   }
 }
 
-bool Engine::improving_estimate(int k, double d) const {
+bool RationalEngine::improving_estimate(int k, double d) const {
   switch (status_[k]) {
     case VarStatus::at_lower: return d < -pricing_tolerance;
     case VarStatus::at_upper: return d > pricing_tolerance;
@@ -613,13 +635,13 @@ bool Engine::improving_estimate(int k, double d) const {
   }
 }
 
-void Engine::entering_column(int k) {
+void RationalEngine::entering_column(int k) {
   rows_.clear();
   scatter_column(k, rows_);
   factor_.ftran(rows_, alpha_);
 }
 
-void Engine::reduced_cost_from_column(int k, bool phase_one, Rational& out) {
+void RationalEngine::reduced_cost_from_column(int k, bool phase_one, Rational& out) {
   if (phase_one) out = 0;
   else out = cost_[k];
   for (int p : alpha_.pattern()) {
@@ -638,7 +660,7 @@ void Engine::reduced_cost_from_column(int k, bool phase_one, Rational& out) {
 
 // Flips boxed nonbasic variables whose reduced cost has the wrong sign; false when some other
 // nonbasic variable keeps a wrong sign (then the basis is not dual feasible).
-bool Engine::make_dual_feasible() {
+bool RationalEngine::make_dual_feasible() {
   compute_duals(false);
   std::vector<int> flips;
   for (int k = 0; k < total(); ++k) {
@@ -655,10 +677,10 @@ bool Engine::make_dual_feasible() {
 
 // duals_ = rho, row `position` of B^{-1}; pivot_row_ = rho^T M_k for the variables that may
 // enter (nonbasic, not fixed), zeros dropped.
-void Engine::compute_pivot_row(int position) {
+void RationalEngine::compute_pivot_row(int position) {
   positions_.clear();
   positions_.at(position) = 1;
-  const SparseVector& rho = duals_;
+  const RationalSparseVector& rho = duals_;
   factor_.btran(positions_, duals_);
   pivot_row_.clear();
   for (int i : rho.pattern()) {
@@ -678,13 +700,13 @@ void Engine::compute_pivot_row(int position) {
 
 // Whether nonbasic k, moving off its bound, would move the basic variable of the pivot row
 // towards the bound it violates (below it when to_lower).
-bool Engine::dual_candidate(int k, bool to_lower) const {
+bool RationalEngine::dual_candidate(int k, bool to_lower) const {
   int s = sign_of(pivot_row_[k]);
   return status_[k] == VarStatus::at_zero ||
          (status_[k] == VarStatus::at_lower ? (s < 0) == to_lower : (s > 0) == to_lower);
 }
 
-bool Engine::certify_infeasible_row(int variable) {
+bool RationalEngine::certify_infeasible_row(int variable) {
   if (variable < 0 || variable >= total() || !basic(variable) || (!below(variable) && !above(variable))) return false;
   const bool to_lower = below(variable);
   compute_pivot_row(position_[variable]);
@@ -697,7 +719,7 @@ bool Engine::certify_infeasible_row(int variable) {
   return true;
 }
 
-bool Engine::certify_ray(int variable) {
+bool RationalEngine::certify_ray(int variable) {
   if (variable < 0 || variable >= total() || basic(variable) || fixed_[variable] || infeasible_basis()) return false;
   compute_duals(false);
   reduced_cost(variable, false, d_);
@@ -721,14 +743,14 @@ bool Engine::certify_ray(int variable) {
 }
 
 // ray_ = the edge along which `entering` moves in `direction`: +-(e_q - B^{-1} a_q) on the columns.
-void Engine::set_ray(int entering, int direction) {
+void RationalEngine::set_ray(int entering, int direction) {
   ray_.assign(static_cast<std::size_t>(n_), Rational(0));
   if (entering < n_) ray_[entering] = direction;
   for (int p : alpha_.pattern())
     if (head_[p] < n_ && !is_zero(alpha_[p])) ray_[head_[p]] = direction > 0 ? Rational(-alpha_[p]) : alpha_[p];
 }
 
-Engine::Step Engine::dual() {
+RationalEngine::Step RationalEngine::dual() {
   for (;;) {
     if (!poll("exact dual")) return Step::stopped;
     // Leaving: the basic variable with the largest violation (Bland: the lowest index).
@@ -791,7 +813,7 @@ Engine::Step Engine::dual() {
   }
 }
 
-void Engine::fill_result(EngineResult& result, Step step) {
+void RationalEngine::fill_result(EngineResult& result, Step step) {
   result.iterations = iterations_;
   result.repaired = repaired_;
   result.phase = phase_;
@@ -820,7 +842,7 @@ void Engine::fill_result(EngineResult& result, Step step) {
   }
 }
 
-EngineResult Engine::run() {
+EngineResult RationalEngine::run() {
   EngineResult result;
   Step step = Step::done;
   if (settled_) {

@@ -38,9 +38,10 @@ struct EngineResult {
 // exact arithmetic; doubles only rank pricing candidates.  After a run of degenerate pivots the
 // choices follow Bland's rule (R. G. Bland, "New finite pivoting rules for the simplex method",
 // Math. of OR 2, 1977) until progress resumes, so the method cannot cycle.
-class Engine {
+class RationalEngine {
  public:
-  Engine(const model::Model& model, run::Budget* budget, const std::function<void(const Progress&)>* progress);
+  RationalEngine(const model::Model& model, run::Budget* budget,
+                 const std::function<void(const Progress&)>* progress);
 
   // Starts from the all-logical basis, columns resting at a finite bound (or zero when free).
   void start_from_logicals();
@@ -73,12 +74,12 @@ class Engine {
   bool below(int k) const { return lower_[k] && value_[k] < *lower_[k]; }
   bool above(int k) const { return upper_[k] && value_[k] > *upper_[k]; }
   bool infeasible_basis() const;
-  void scatter_column(int k, SparseVector& target) const;
+  void scatter_column(int k, RationalSparseVector& target) const;
   void rest_nonbasic(int k, VarStatus wanted);
   bool fits(const simplex::Basis& basis) const;
   // Rests every nonbasic variable where the basis says and returns the basic ones.
   std::vector<int> rest_as_in(const simplex::Basis& basis);
-  void nonbasic_activity(SparseVector& target);
+  void nonbasic_activity(RationalSparseVector& target);
   SparseColumn constraint_column(int k) const;
   void refactor();
   bool install_basis(std::vector<int> basic_variables);
@@ -99,6 +100,16 @@ class Engine {
   bool dual_candidate(int k, bool to_lower) const;
   void set_ray(int entering, int direction);
   Step primal();
+  // The primal simplex's parts: pricing (by double estimates, then exactly) and the ratio test.
+  struct PrimalBlock {
+    bool bounded = false;  // some variable blocks the step
+    bool flip = false;     // the entering variable's own other bound blocks first
+    int position = -1;     // else the blocking basic variable's position, leaving to `status`
+    VarStatus status = VarStatus::at_lower;
+  };
+  int price_by_estimates(bool phase_one, std::vector<std::pair<double, int>>& candidates);
+  int price_exactly(bool phase_one);
+  PrimalBlock primal_ratio_test(int entering, int direction);
   Step dual();
   bool poll(const char* phase);
   void exchange(int entering, int leaving_position, VarStatus leaving_status);
@@ -118,8 +129,8 @@ class Engine {
   std::vector<VarStatus> status_;
   std::vector<int> head_;      // basis position -> variable
   std::vector<int> position_;  // variable -> basis position, -1 when nonbasic
-  BasisFactor factor_;
-  SparseVector rows_, positions_, alpha_, duals_, pivot_row_;
+  RationalBasisFactor factor_;
+  RationalSparseVector rows_, positions_, alpha_, duals_, pivot_row_;
   std::vector<double> dual_estimate_, cost_estimate_of_basis_;
   Rational scratch_, d_, ratio_, best_ratio_;
   long iterations_ = 0;

@@ -6,13 +6,13 @@
 
 namespace plumb::exact::detail {
 
-void SparseVector::resize(int size) {
+void RationalSparseVector::resize(int size) {
   values_.assign(static_cast<std::size_t>(size), Rational(0));
   listed_.assign(static_cast<std::size_t>(size), 0);
   index_.clear();
 }
 
-void SparseVector::clear() {
+void RationalSparseVector::clear() {
   for (int i : index_) {
     mpq_set_ui(values_[i].backend().data(), 0, 1);
     listed_[i] = 0;
@@ -20,7 +20,7 @@ void SparseVector::clear() {
   index_.clear();
 }
 
-void SparseVector::tidy() {
+void RationalSparseVector::tidy() {
   std::erase_if(index_, [this](int i) {
     if (!is_zero(values_[i])) return false;
     listed_[i] = 0;
@@ -191,7 +191,7 @@ struct ActiveSubmatrix {
 
 }  // namespace
 
-void BasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
+void RationalBasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
   m_ = m;
   const int k = static_cast<int>(columns.size());
   pivots_.clear();
@@ -233,7 +233,7 @@ void BasisFactor::factorize(int m, const std::vector<SparseColumn>& columns) {
   }
 }
 
-void BasisFactor::ftran(SparseVector& b, SparseVector& result) {
+void RationalBasisFactor::ftran(RationalSparseVector& b, RationalSparseVector& result) {
   for (const Pivot& pivot : pivots_) {
     const Rational& v = b[pivot.row];
     if (is_zero(v)) continue;
@@ -257,7 +257,7 @@ void BasisFactor::ftran(SparseVector& b, SparseVector& result) {
   }
 }
 
-void BasisFactor::btran(SparseVector& c, SparseVector& result) {
+void RationalBasisFactor::btran(RationalSparseVector& c, RationalSparseVector& result) {
   for (auto eta = etas_.rbegin(); eta != etas_.rend(); ++eta) {
     value_ = c[eta->position];
     bool any = !is_zero(value_);
@@ -292,7 +292,7 @@ void BasisFactor::btran(SparseVector& c, SparseVector& result) {
   }
 }
 
-void BasisFactor::estimate_btran(std::vector<double>& c, std::vector<double>& y) const {
+void RationalBasisFactor::estimate_btran(std::vector<double>& c, std::vector<double>& y) const {
   for (auto eta = etas_.rbegin(); eta != etas_.rend(); ++eta) {
     double value = c[eta->position];
     for (std::size_t e = 0; e < eta->others.size(); ++e) value -= eta->others_estimate[e] * c[eta->others[e].first];
@@ -314,7 +314,7 @@ void BasisFactor::estimate_btran(std::vector<double>& c, std::vector<double>& y)
   }
 }
 
-void BasisFactor::update(int position, const SparseVector& alpha) {
+void RationalBasisFactor::update(int position, const RationalSparseVector& alpha) {
   Eta eta;
   eta.position = position;
   eta.pivot = alpha[position];

@@ -29,9 +29,9 @@ inline int sign_of(const Rational& value) { return mpq_sgn(value.backend().data(
 
 // A dense array of rationals with the list of positions that may be non-zero, so that clearing
 // and iterating cost the number of non-zeros, not the dimension.
-class SparseVector {
+class RationalSparseVector {
  public:
-  explicit SparseVector(int size = 0) { resize(size); }
+  explicit RationalSparseVector(int size = 0) { resize(size); }
   void resize(int size);
   int size() const { return static_cast<int>(values_.size()); }
   void clear();
@@ -67,7 +67,7 @@ struct SparseColumn {
 // so only fill matters.  Later basis changes are kept as a product-form eta file
 // (G. B. Dantzig and W. Orchard-Hays, "The product form for the inverse in the simplex method",
 // 1954) until the next refactorization.
-class BasisFactor {
+class RationalBasisFactor {
  public:
   // Factorizes the m x k matrix whose columns are given.  Columns found dependent on earlier
   // ones, and columns beyond the rank, are reported in dependent_columns; rows that got no pivot
@@ -82,17 +82,17 @@ class BasisFactor {
 
   // Solves B x = b.  b is indexed by row on entry; on return `result` holds x indexed by basis
   // position and b is cleared.
-  void ftran(SparseVector& b, SparseVector& result);
+  void ftran(RationalSparseVector& b, RationalSparseVector& result);
   // Solves B^T y = c.  c is indexed by basis position; on return `result` holds y indexed by row
   // and c is cleared.
-  void btran(SparseVector& c, SparseVector& result);
+  void btran(RationalSparseVector& c, RationalSparseVector& result);
 
   // B^T y = c in doubles through rounded copies of the same factors: an estimate for pricing,
   // never a decision.  c (by basis position) is overwritten; y is indexed by row.
   void estimate_btran(std::vector<double>& c, std::vector<double>& y) const;
 
   // Records that basis position `position` now holds the column whose ftran is `alpha`.
-  void update(int position, const SparseVector& alpha);
+  void update(int position, const RationalSparseVector& alpha);
   int updates() const { return static_cast<int>(etas_.size()); }
   // Sizes in limbs: applying the eta file costs about eta_limbs(), the LU about factor_limbs().
   std::size_t eta_limbs() const { return eta_limbs_; }

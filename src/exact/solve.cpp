@@ -41,7 +41,7 @@ std::function<void(const simplex::FloatProgress&)> float_progress(const SolveOpt
 // start; exact pivots on long fractions can cost seconds each.
 constexpr int correction_rounds = 4;
 
-bool certify_with_corrections(Engine& engine, const model::Model& model, const SolveOptions& options,
+bool certify_with_corrections(RationalEngine& engine, const model::Model& model, const SolveOptions& options,
                               simplex::Basis& basis, SolveStats& stats) {
   for (int round = 0;; ++round) {
     simplex::CorrectionProblem correction;
@@ -75,7 +75,7 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
     proven = detail::prove_unbounded(model, options, *start, correction_stats);
   if (proven) return std::move(*proven);
 
-  detail::Engine engine(model, options.budget, &options.progress);
+  detail::RationalEngine engine(model, options.budget, &options.progress);
   bool repaired = false;
   const char* proof = "rational basis";  // start_from's exact LU, then no pivot
   if (!start) {

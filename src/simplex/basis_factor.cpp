@@ -22,7 +22,7 @@ void remove_from(std::vector<int>& list, int item) {
 
 // Rows keep values, columns keep only their pattern (Suhl & Suhl 1990, section 3); rows and
 // columns sit in doubly linked lists by their count of active entries.
-struct BasisFactor::Active {
+struct FloatBasisFactor::Active {
   std::vector<std::vector<int>> row_columns;
   std::vector<std::vector<double>> row_values;
   std::vector<std::vector<int>> column_rows;
@@ -74,7 +74,7 @@ struct BasisFactor::Active {
                         SparseVectors& l_columns, double drop_tolerance);
 };
 
-BasisFactor::Active::Active(int m, const SparseVectors& columns)
+FloatBasisFactor::Active::Active(int m, const SparseVectors& columns)
     : row_columns(m),
       row_values(m),
       column_rows(m),
@@ -102,8 +102,8 @@ BasisFactor::Active::Active(int m, const SparseVectors& columns)
 
 // Markowitz search over the sparsest columns and rows, a few candidates deep: the entry of least
 // (row count - 1) (column count - 1) that passes the threshold test; no row when none is left.
-BasisFactor::Active::Pivot BasisFactor::Active::markowitz_search(double absolute_tolerance,
-                                                                 double pivot_threshold) {
+FloatBasisFactor::Active::Pivot FloatBasisFactor::Active::markowitz_search(double absolute_tolerance,
+                                                                           double pivot_threshold) {
   const int m = static_cast<int>(row_columns.size());
   Pivot best;
   double best_cost = std::numeric_limits<double>::infinity();
@@ -142,7 +142,7 @@ BasisFactor::Active::Pivot BasisFactor::Active::markowitz_search(double absolute
 
 // The pivot row leaves the active matrix and becomes the next row of U (scattered into
 // pivot_values as well); returns the pivot.
-double BasisFactor::Active::take_pivot_row(Pivot pivot, SparseVectors& u_rows) {
+double FloatBasisFactor::Active::take_pivot_row(Pivot pivot, SparseVectors& u_rows) {
   const int r = pivot.row, c = pivot.column;
   unlink(row_head, row_next, row_prev, r, row_count(r));
   unlink(column_head, column_next, column_prev, c, column_count(c));
@@ -166,9 +166,9 @@ double BasisFactor::Active::take_pivot_row(Pivot pivot, SparseVectors& u_rows) {
 
 // Eliminates the pivot column from the other active rows with U's row `step`, recording the
 // multipliers as the next column of L; fill-in below drop_tolerance is not stored.
-void BasisFactor::Active::eliminate_column(Pivot pivot, double pivot_value, int step,
-                                           const SparseVectors& u_rows, SparseVectors& l_columns,
-                                           double drop_tolerance) {
+void FloatBasisFactor::Active::eliminate_column(Pivot pivot, double pivot_value, int step,
+                                                const SparseVectors& u_rows, SparseVectors& l_columns,
+                                                double drop_tolerance) {
   const int r = pivot.row, c = pivot.column;
   for (int i : column_rows[c]) {
     if (i == r) continue;
@@ -213,7 +213,7 @@ void BasisFactor::Active::eliminate_column(Pivot pivot, double pivot_value, int 
   row_values[r].clear();
 }
 
-BasisFactor::Singularity BasisFactor::factorize(int m, const SparseVectors& columns) {
+FloatBasisFactor::Singularity FloatBasisFactor::factorize(int m, const SparseVectors& columns) {
   m_ = m;
   usable_ = false;
   std::vector<int> pivot_row, pivot_position;
@@ -246,7 +246,7 @@ BasisFactor::Singularity BasisFactor::factorize(int m, const SparseVectors& colu
   return singular;
 }
 
-void SparseVector::rebuild_index() {
+void FloatSparseVector::rebuild_index() {
   index.clear();
   for (int i = 0; i < static_cast<int>(values.size()); ++i)
     if (values[i] != 0) index.push_back(i);
@@ -293,9 +293,10 @@ void ListPool::remove(int list, int i) {
 
 // The steps' factors are re-indexed by pivot row (for L and U) so that Forrest-Tomlin updates
 // can reorder U without touching L.
-void BasisFactor::install_factors(const std::vector<int>& pivot_row, const std::vector<int>& pivot_position,
-                                  const std::vector<double>& diagonal, const SparseVectors& l_columns,
-                                  const SparseVectors& u_rows) {
+void FloatBasisFactor::install_factors(const std::vector<int>& pivot_row,
+                                       const std::vector<int>& pivot_position,
+                                       const std::vector<double>& diagonal, const SparseVectors& l_columns,
+                                       const SparseVectors& u_rows) {
   const int m = m_;
   position_of_row_.assign(m, -1);
   row_of_position_.assign(m, -1);
@@ -368,15 +369,17 @@ void BasisFactor::install_factors(const std::vector<int>& pivot_row, const std::
   row_work_.assign(m, 0);
 }
 
-bool BasisFactor::refactor_due() const {
+bool FloatBasisFactor::refactor_due() const {
   return !usable_ || updates_ >= update_limit ||
          u_nonzeros_ + r_etas_.index.size() > 2 * (l_nonzeros_ + factored_nonzeros_ + m_);
 }
 
-bool BasisFactor::sparse_enough(const SparseVector& x) const { return x.count() <= sparse_density * m_; }
+bool FloatBasisFactor::sparse_enough(const FloatSparseVector& x) const {
+  return x.count() <= sparse_density * m_;
+}
 
 template <class Neighbours>
-bool BasisFactor::reach(SparseVector& x, Neighbours&& neighbours) const {
+bool FloatBasisFactor::reach(FloatSparseVector& x, Neighbours&& neighbours) const {
   const std::size_t limit = static_cast<std::size_t>(sparse_density * m_);
   scratch_index_.clear();  // finished nodes, in postorder
   std::size_t reached = 0;
@@ -419,7 +422,8 @@ bool BasisFactor::reach(SparseVector& x, Neighbours&& neighbours) const {
 // holds r: through the reached nodes in topological order, or through all of dense_order.  The
 // dense way lists the nonzeros by one scan at the end, cheaper than marking each entry as it
 // fills in (at least sparse_density * m entries are listed already when it is taken).
-void BasisFactor::eliminate(SparseVector& x, const SparseVectors& lists, const std::vector<int>& dense_order) const {
+void FloatBasisFactor::eliminate(FloatSparseVector& x, const SparseVectors& lists,
+                                 const std::vector<int>& dense_order) const {
   const int* index = lists.index.data();
   const double* value = lists.value.data();
   auto apply = [&](int r) {
@@ -436,12 +440,12 @@ void BasisFactor::eliminate(SparseVector& x, const SparseVectors& lists, const s
   x.rebuild_index();
 }
 
-void BasisFactor::solve_l(SparseVector& x) const { eliminate(x, l_columns_, l_order_); }
+void FloatBasisFactor::solve_l(FloatSparseVector& x) const { eliminate(x, l_columns_, l_order_); }
 
-void BasisFactor::solve_lt(SparseVector& x) const { eliminate(x, l_rows_, lt_order_); }
+void FloatBasisFactor::solve_lt(FloatSparseVector& x) const { eliminate(x, l_rows_, lt_order_); }
 
 // R in order; an update's row is listed when it turns nonzero (visited_ marks the listed rows).
-void BasisFactor::solve_r(SparseVector& x) const {
+void FloatBasisFactor::solve_r(FloatSparseVector& x) const {
   if (r_row_.empty()) return;
   for (int i : x.index) visited_[i] = 1;
   for (std::size_t e = 0; e < r_row_.size(); ++e) {
@@ -455,7 +459,7 @@ void BasisFactor::solve_r(SparseVector& x) const {
   for (int i : x.index) visited_[i] = 0;
 }
 
-void BasisFactor::solve_rt(SparseVector& x) const {
+void FloatBasisFactor::solve_rt(FloatSparseVector& x) const {
   if (r_row_.empty()) return;
   for (int i : x.index) visited_[i] = 1;
   for (int e = static_cast<int>(r_row_.size()) - 1; e >= 0; --e) {
@@ -474,8 +478,8 @@ void BasisFactor::solve_rt(SparseVector& x) const {
 // rows and keys positions for U, the other way round for U^T); its value then leaves the nodes
 // in lists[key[v]].  The result goes to the key space through solved_, without a permutation.
 template <class Pivot, class DenseOrder>
-void BasisFactor::substitute(SparseVector& x, const ListPool& lists, const std::vector<int>& key, Pivot&& pivot,
-                             DenseOrder&& dense_order) const {
+void FloatBasisFactor::substitute(FloatSparseVector& x, const ListPool& lists, const std::vector<int>& key,
+                                  Pivot&& pivot, DenseOrder&& dense_order) const {
   auto solve = [&](int v) {
     double value = x.values[v];
     if (value == 0) return;
@@ -499,27 +503,27 @@ void BasisFactor::substitute(SparseVector& x, const ListPool& lists, const std::
   solved_.index.clear();
 }
 
-void BasisFactor::solve_u(SparseVector& x) const {
+void FloatBasisFactor::solve_u(FloatSparseVector& x) const {
   substitute(x, u_columns_, position_of_row_, [&](int r) { return diagonal_[r]; }, [&](auto&& solve) {
     for (auto k = u_order_.rbegin(); k != u_order_.rend(); ++k)
       if (*k >= 0) solve(*k);
   });
 }
 
-void BasisFactor::solve_ut(SparseVector& x) const {
+void FloatBasisFactor::solve_ut(FloatSparseVector& x) const {
   substitute(x, u_rows_, row_of_position_, [&](int c) { return diagonal_[row_of_position_[c]]; }, [&](auto&& solve) {
     for (int r : u_order_)
       if (r >= 0) solve(position_of_row_[r]);
   });
 }
 
-void BasisFactor::ftran(SparseVector& x) const {
+void FloatBasisFactor::ftran(FloatSparseVector& x) const {
   solve_l(x);
   solve_r(x);
   solve_u(x);
 }
 
-void BasisFactor::ftran_entering(SparseVector& x) {
+void FloatBasisFactor::ftran_entering(FloatSparseVector& x) {
   solve_l(x);
   solve_r(x);
   spike_.clear();
@@ -528,14 +532,14 @@ void BasisFactor::ftran_entering(SparseVector& x) {
   solve_u(x);
 }
 
-void BasisFactor::btran(SparseVector& x) const {
+void FloatBasisFactor::btran(FloatSparseVector& x) const {
   solve_ut(x);
   solve_rt(x);
   solve_lt(x);
 }
 
 template <class Solve>
-void BasisFactor::solve_dense(std::vector<double>& x, Solve&& solve) const {
+void FloatBasisFactor::solve_dense(std::vector<double>& x, Solve&& solve) const {
   dense_.values.swap(x);
   dense_.rebuild_index();
   solve(dense_);
@@ -543,19 +547,19 @@ void BasisFactor::solve_dense(std::vector<double>& x, Solve&& solve) const {
   dense_.index.clear();
 }
 
-void BasisFactor::ftran(std::vector<double>& x) const {
-  solve_dense(x, [this](SparseVector& v) { ftran(v); });
+void FloatBasisFactor::ftran(std::vector<double>& x) const {
+  solve_dense(x, [this](FloatSparseVector& v) { ftran(v); });
 }
 
-void BasisFactor::btran(std::vector<double>& x) const {
-  solve_dense(x, [this](SparseVector& v) { btran(v); });
+void FloatBasisFactor::btran(std::vector<double>& x) const {
+  solve_dense(x, [this](FloatSparseVector& v) { btran(v); });
 }
 
 // Forrest & Tomlin (1972): column p of U becomes the spike; the row paired with p moves to the
 // end of the pivot order, and its entries left of the new diagonal are eliminated by the rows
 // now before it, in pivot order (that elimination is the new row transformation).  The new
 // pivot must equal alpha times the old one, as the determinant changes by the factor alpha.
-bool BasisFactor::update(int position, double alpha) {
+bool FloatBasisFactor::update(int position, double alpha) {
   const int t = row_of_position_[position];
   const double old_pivot = diagonal_[t];
 

@@ -28,7 +28,7 @@ struct SparseVectors {
 // A vector of length m held densely, with the list of its nonzeros so that sparse work can skip
 // the zeros.  Invariant: every i with values[i] != 0 is listed in index; a listed entry may have
 // become zero by cancellation.
-struct SparseVector {
+struct FloatSparseVector {
   std::vector<double> values;
   std::vector<int> index;
 
@@ -48,7 +48,7 @@ struct SparseVector {
     if (values[i] == 0) index.push_back(i);
     values[i] += v;
   }
-  void copy_from(const SparseVector& other) {
+  void copy_from(const FloatSparseVector& other) {
     clear();
     for (int i : other.index) values[i] = other.values[i];
     index = other.index;
@@ -93,7 +93,7 @@ class ListPool {
 // Indexing: the basis matrix has rows 0..m-1 and positions 0..m-1 (its columns).  ftran takes a
 // row-indexed right-hand side and returns the position-indexed solution of B x = b; btran takes
 // a position-indexed c and returns the row-indexed solution of B^T y = c.
-class BasisFactor {
+class FloatBasisFactor {
  public:
   // What could not be pivoted: the positions and rows left when the basis is singular.  The
   // caller puts the logical of each such row into one such position and factorizes again.
@@ -113,10 +113,10 @@ class BasisFactor {
   // Factorizes the m x m matrix whose column at position k is columns[k] (rows and values).
   Singularity factorize(int m, const SparseVectors& columns);
 
-  void ftran(SparseVector& x) const;
-  void btran(SparseVector& x) const;
+  void ftran(FloatSparseVector& x) const;
+  void btran(FloatSparseVector& x) const;
   // ftran of the column about to enter the basis, keeping its partial solution for update().
-  void ftran_entering(SparseVector& x);
+  void ftran_entering(FloatSparseVector& x);
   // Dense right-hand sides (every entry looked at).
   void ftran(std::vector<double>& x) const;
   void btran(std::vector<double>& x) const;
@@ -139,23 +139,23 @@ class BasisFactor {
 
   // The stages of the solves, each on a vector that is row-indexed on entry and exit except
   // where noted.
-  void solve_l(SparseVector& x) const;
-  void solve_r(SparseVector& x) const;
-  void solve_u(SparseVector& x) const;    // row-indexed in, position-indexed out
-  void solve_ut(SparseVector& x) const;   // position-indexed in, row-indexed out
-  void solve_rt(SparseVector& x) const;
-  void solve_lt(SparseVector& x) const;
+  void solve_l(FloatSparseVector& x) const;
+  void solve_r(FloatSparseVector& x) const;
+  void solve_u(FloatSparseVector& x) const;   // row-indexed in, position-indexed out
+  void solve_ut(FloatSparseVector& x) const;  // position-indexed in, row-indexed out
+  void solve_rt(FloatSparseVector& x) const;
+  void solve_lt(FloatSparseVector& x) const;
   template <class Solve>
   void solve_dense(std::vector<double>& x, Solve&& solve) const;  // through dense_
-  bool sparse_enough(const SparseVector& x) const;
+  bool sparse_enough(const FloatSparseVector& x) const;
   // Depth-first search from x's nonzeros over the graph whose edges from node v are
   // neighbours(v); on success x.index holds the reached nodes in topological order.  Gives up
   // (false, x unchanged) when more than `limit` nodes are reached.
   template <class Neighbours>
-  bool reach(SparseVector& x, Neighbours&& neighbours) const;
-  void eliminate(SparseVector& x, const SparseVectors& lists, const std::vector<int>& dense_order) const;
+  bool reach(FloatSparseVector& x, Neighbours&& neighbours) const;
+  void eliminate(FloatSparseVector& x, const SparseVectors& lists, const std::vector<int>& dense_order) const;
   template <class Pivot, class DenseOrder>
-  void substitute(SparseVector& x, const ListPool& lists, const std::vector<int>& key, Pivot&& pivot,
+  void substitute(FloatSparseVector& x, const ListPool& lists, const std::vector<int>& key, Pivot&& pivot,
                   DenseOrder&& dense_order) const;
 
   int m_ = 0;
@@ -179,10 +179,10 @@ class BasisFactor {
   int updates_ = 0;
   bool usable_ = false;  // false after a singular factorization or a failed update
 
-  SparseVector spike_;  // L and R applied to the entering column, for update()
-  mutable SparseVector dense_;  // the dense solves' vector
+  FloatSparseVector spike_;          // L and R applied to the entering column, for update()
+  mutable FloatSparseVector dense_;  // the dense solves' vector
   mutable std::vector<char> visited_;
-  mutable SparseVector solved_;  // the triangular solves' results, swapped into place
+  mutable FloatSparseVector solved_;  // the triangular solves' results, swapped into place
   mutable std::vector<int> stack_, next_edge_, scratch_index_;
   std::vector<double> row_work_;  // update(): the row being eliminated, by position
 };

@@ -17,7 +17,7 @@ constexpr long iteration_floor = 10000;
 // The pivot row is computed row-wise over rho's nonzeros when rho is sparser than this share of
 // the rows, else column by column over every nonbasic column: row-wise work grows with rho's
 // nonzeros times the row lengths, column-wise with all of A.  Common practice puts the switch
-// between a tenth and a third; this value is untuned.  (BasisFactor::sparse_density, 0.1, is the
+// between a tenth and a third; this value is untuned.  (FloatBasisFactor::sparse_density, 0.1, is the
 // like switch of the triangular solves, whose dense loops are cheaper than a pass over A.)
 constexpr double row_wise_pivot_row_density = 0.2;
 
@@ -50,7 +50,7 @@ constexpr double cost_perturbation = 1e-6;
 
 }  // namespace
 
-Engine::Engine(const LpData& lp, const FloatOptions& options)
+FloatEngine::FloatEngine(const LpData& lp, const FloatOptions& options)
     : lp_(lp),
       options_(options),
       m_(lp.rows),
@@ -81,14 +81,14 @@ Engine::Engine(const LpData& lp, const FloatOptions& options)
   start_from(slack);
 }
 
-VarStatus Engine::default_status(int j) const {
+VarStatus FloatEngine::default_status(int j) const {
   if (lower_[j] > -inf_) return VarStatus::at_lower;
   if (upper_[j] < inf_) return VarStatus::at_upper;
   return VarStatus::at_zero;
 }
 
 // The bound a nonbasic variable should rest at so its reduced cost is dual feasible, if any.
-VarStatus Engine::status_for_reduced_cost(int j) const {
+VarStatus FloatEngine::status_for_reduced_cost(int j) const {
   if (fixed(j)) return VarStatus::at_lower;
   if (d_[j] > dual_tolerance && lower_[j] > -inf_) return VarStatus::at_lower;
   if (d_[j] < -dual_tolerance && upper_[j] < inf_) return VarStatus::at_upper;
@@ -100,7 +100,7 @@ VarStatus Engine::status_for_reduced_cost(int j) const {
   return default_status(j);
 }
 
-double Engine::nonbasic_value(int j) const {
+double FloatEngine::nonbasic_value(int j) const {
   switch (status_[j]) {
     case VarStatus::at_lower: return lower_[j];
     case VarStatus::at_upper: return upper_[j];
@@ -108,7 +108,7 @@ double Engine::nonbasic_value(int j) const {
   }
 }
 
-void Engine::set_nonbasic(int j, VarStatus s) {
+void FloatEngine::set_nonbasic(int j, VarStatus s) {
   if (s == VarStatus::at_lower && lower_[j] == -inf_) s = default_status(j);
   if (s == VarStatus::at_upper && upper_[j] == inf_) s = default_status(j);
   if (s == VarStatus::at_zero && (lower_[j] > -inf_ || upper_[j] < inf_)) s = default_status(j);
@@ -118,7 +118,7 @@ void Engine::set_nonbasic(int j, VarStatus s) {
 }
 
 template <class F>
-void Engine::for_column(int j, F&& f) const {
+void FloatEngine::for_column(int j, F&& f) const {
   if (j < n_) {
     for (int p = lp_.by_column.start[j]; p < lp_.by_column.start[j + 1]; ++p) f(lp_.by_column.index[p], lp_.by_column.value[p]);
   } else {
@@ -126,7 +126,7 @@ void Engine::for_column(int j, F&& f) const {
   }
 }
 
-void Engine::start_from(const std::vector<VarStatus>& statuses) {
+void FloatEngine::start_from(const std::vector<VarStatus>& statuses) {
   const int total = m_ + n_;
   int basic = 0;
   for (int j = 0; j < total; ++j) basic += statuses[j] == VarStatus::basic;
@@ -148,7 +148,7 @@ void Engine::start_from(const std::vector<VarStatus>& statuses) {
   std::fill(weight_.begin(), weight_.end(), 1.0);
 }
 
-void Engine::refactor() {
+void FloatEngine::refactor() {
   repaired_ = false;
   for (int attempt = 0; attempt < 4; ++attempt) {
     SparseVectors columns;
@@ -173,7 +173,7 @@ void Engine::refactor() {
   throw NumericalTrouble{"the basis stays singular after logicals were put in"};
 }
 
-bool Engine::refresh() {
+bool FloatEngine::refresh() {
   refactor();
   compute_primal();
   compute_dual();
@@ -181,7 +181,7 @@ bool Engine::refresh() {
   return repaired_;
 }
 
-bool Engine::refresh_dual_feasible() {
+bool FloatEngine::refresh_dual_feasible() {
   bool repaired = refresh();
   if (remove_dual_infeasibilities(shift_limit) > shift_limit) {
     dual_feasibility_lost_ = true;
@@ -190,7 +190,7 @@ bool Engine::refresh_dual_feasible() {
   return repaired;
 }
 
-void Engine::raise_stability() {
+void FloatEngine::raise_stability() {
   if (stability_level_ >= 3) return;
   ++stability_level_;
   static constexpr double lu_threshold[] = {0.1, 0.3, 0.6, 0.9};
@@ -199,7 +199,7 @@ void Engine::raise_stability() {
   pivot_tolerance = pivot_size[stability_level_];
 }
 
-void Engine::compute_primal() {
+void FloatEngine::compute_primal() {
   std::fill(work_.begin(), work_.end(), 0.0);
   for (int j = 0; j < m_ + n_; ++j) {
     if (status_[j] == VarStatus::basic || x_[j] == 0) continue;
@@ -213,21 +213,21 @@ void Engine::compute_primal() {
   for (int k = 0; k < m_; ++k) note_moved(k);
 }
 
-void Engine::note_moved(int k) {
+void FloatEngine::note_moved(int k) {
   if (!listed_[k] && primal_infeasibility(head_[k]) > 0) {
     listed_[k] = 1;
     infeasible_.push_back(k);
   }
 }
 
-void Engine::move_basics(const SparseVector& change, double factor) {
+void FloatEngine::move_basics(const FloatSparseVector& change, double factor) {
   for (int k : change.index) {
     x_[head_[k]] -= factor * change[k];
     note_moved(k);
   }
 }
 
-void Engine::compute_dual() {
+void FloatEngine::compute_dual() {
   for (int k = 0; k < m_; ++k) work_[k] = cost_[head_[k]];
   factor_.btran(work_);  // now y, by row
   for (int j = 0; j < n_; ++j) {
@@ -243,7 +243,7 @@ void Engine::compute_dual() {
   for (int i = 0; i < m_; ++i) d_[n_ + i] = status_[n_ + i] == VarStatus::basic ? 0 : cost_[n_ + i] + work_[i];
 }
 
-bool Engine::pivot_disagrees(double alpha, double row_alpha, int allowed) {
+bool FloatEngine::pivot_disagrees(double alpha, double row_alpha, int allowed) {
   if (std::abs(alpha - row_alpha) <= pivot_agreement * (1 + std::abs(alpha)) &&
       std::abs(alpha) >= smallest_pivot)
     return false;
@@ -252,7 +252,7 @@ bool Engine::pivot_disagrees(double alpha, double row_alpha, int allowed) {
   return true;
 }
 
-void Engine::compute_pivot_row() {
+void FloatEngine::compute_pivot_row() {
   // Row-wise through the nonzeros of rho when it is sparse, else column by column.
   const int nonzeros = rho_.count();
   auto touch = [&](int j, double v) {
@@ -283,7 +283,7 @@ void Engine::compute_pivot_row() {
     if (rho_[i] != 0 && position_[n_ + i] < 0) touch(n_ + i, -rho_[i]);
 }
 
-void Engine::clear_pivot_row() {
+void FloatEngine::clear_pivot_row() {
   for (int j : row_touched_) {
     alpha_row_[j] = 0;
     in_row_[j] = 0;
@@ -291,19 +291,19 @@ void Engine::clear_pivot_row() {
   row_touched_.clear();
 }
 
-double Engine::primal_infeasibility(int j) const {
+double FloatEngine::primal_infeasibility(int j) const {
   if (x_[j] < lower_[j] - primal_tolerance) return lower_[j] - x_[j];
   if (x_[j] > upper_[j] + primal_tolerance) return x_[j] - upper_[j];
   return 0;
 }
 
-int Engine::count_primal_infeasible() const {
+int FloatEngine::count_primal_infeasible() const {
   int count = 0;
   for (int k = 0; k < m_; ++k) count += primal_infeasibility(head_[k]) > 0;
   return count;
 }
 
-double Engine::dual_infeasibility(int j) const {
+double FloatEngine::dual_infeasibility(int j) const {
   if (status_[j] == VarStatus::basic || fixed(j)) return 0;
   switch (status_[j]) {
     case VarStatus::at_lower: return std::max(-d_[j], 0.0);
@@ -312,20 +312,20 @@ double Engine::dual_infeasibility(int j) const {
   }
 }
 
-int Engine::count_dual_infeasible(bool boxed_too) const {
+int FloatEngine::count_dual_infeasible(bool boxed_too) const {
   int count = 0;
   for (int j = 0; j < m_ + n_; ++j)
     if (boxed_too || !boxed(j)) count += dual_infeasibility(j) > dual_tolerance;
   return count;
 }
 
-double Engine::objective() const {
+double FloatEngine::objective() const {
   double v = 0;
   for (int j = 0; j < n_ + m_; ++j) v += lp_.cost[j] * x_[j];  // logicals cost only in a correction problem
   return v;
 }
 
-bool Engine::polls_say_stop(const char* phase) {
+bool FloatEngine::polls_say_stop(const char* phase) {
   if (options_.budget && options_.budget->exhausted()) return true;
   if (options_.progress) {
     auto now = std::chrono::steady_clock::now();
@@ -342,7 +342,7 @@ bool Engine::polls_say_stop(const char* phase) {
 
 // Basis change: the variable at position r leaves (its status and value already set by the
 // caller), `entering` takes its place; column_ holds B^-1 a_entering.
-void Engine::pivot(int r, int entering, double primal_step) {
+void FloatEngine::pivot(int r, int entering, double primal_step) {
   move_basics(column_, primal_step);
   int leaving = head_[r];
   double entering_value = x_[entering] + primal_step;
@@ -357,7 +357,87 @@ void Engine::pivot(int r, int entering, double primal_step) {
   ++iterations_;
 }
 
-Engine::LoopEnd Engine::dual_loop(const char* phase) {
+// Pricing of the dual simplex: dual steepest edge (Forrest & Goldfarb, "Steepest-edge simplex
+// algorithms for linear programming", Math. Programming 57, 1992): the largest infeasibility^2 /
+// weight.  Only the listed positions can be infeasible; those found feasible leave the list.
+// Rows whose pivot proved unusable on fresh factors sit out until the next factorization (sets
+// any_rejected).  -1 when no position qualifies.
+int FloatEngine::choose_leaving_position(bool& any_rejected) {
+  int r = -1;
+  double best = 0;
+  for (std::size_t t = 0; t < infeasible_.size(); ++t) {
+    const int k = infeasible_[t];
+    double infeasibility = primal_infeasibility(head_[k]);
+    if (infeasibility <= 0) {
+      listed_[k] = 0;
+      infeasible_[t--] = infeasible_.back();
+      infeasible_.pop_back();
+      continue;
+    }
+    if (rejected_[k]) {
+      any_rejected = true;
+      continue;
+    }
+    double score = infeasibility * infeasibility / weight_[k];
+    if (score > best) best = score, r = k;
+  }
+  return r;
+}
+
+// The dual ratio test's breakpoints from the pivot row: reduced costs d_j - t * sign * alpha_j,
+// sign = -1 when the leaving variable goes to its lower bound.
+void FloatEngine::collect_breakpoints(bool to_lower) {
+  candidates_.clear();
+  const double sign = to_lower ? -1 : 1;
+  for (int j : row_touched_) {
+    if (fixed(j)) continue;
+    double a = sign * alpha_row_[j];
+    if (std::abs(a) <= pivot_tolerance) continue;
+    double range = boxed(j) ? upper_[j] - lower_[j] : inf_;
+    switch (status_[j]) {
+      case VarStatus::at_lower:
+        if (a > 0) candidates_.push_back({j, d_[j], a, range});
+        break;
+      case VarStatus::at_upper:
+        if (a < 0) candidates_.push_back({j, -d_[j], -a, range});
+        break;
+      default:
+        candidates_.push_back({j, a > 0 ? d_[j] : -d_[j], std::abs(a), inf_});
+        break;
+    }
+  }
+}
+
+// Bound flips of the breakpoints the ratio test passed (the bound-flipping ratio test): each
+// boxed variable moves to its other bound and the basic values follow.
+void FloatEngine::flip_bounds(const std::vector<int>& flips) {
+  flips_.clear();
+  for (int j : flips) {
+    VarStatus other = status_[j] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower;
+    double change = (other == VarStatus::at_upper ? upper_[j] : lower_[j]) - x_[j];
+    set_nonbasic(j, other);
+    for_column(j, [&](int i, double v) { flips_.add(i, v * change); });
+  }
+  factor_.ftran(flips_);
+  move_basics(flips_, 1);
+}
+
+// Dual steepest-edge weights after a pivot at position r (Forrest & Goldfarb 1992, update (30)),
+// with tau = B^-1 rho and column_ = B^-1 a_entering.
+void FloatEngine::update_dual_weights(int r, double alpha) {
+  double rho_norm = 0;
+  for (int i : rho_.index) rho_norm += rho_[i] * rho_[i];
+  tau_.copy_from(rho_);
+  factor_.ftran(tau_);
+  for (int k : column_.index) {
+    if (k == r || column_[k] == 0) continue;
+    double kappa = column_[k] / alpha;
+    weight_[k] = std::max(weight_[k] + kappa * (kappa * rho_norm - 2 * tau_[k]), weight_floor);
+  }
+  weight_[r] = std::max(rho_norm / (alpha * alpha), weight_floor);
+}
+
+FloatEngine::LoopEnd FloatEngine::dual_loop(const char* phase) {
   bool fresh = false;
   while (true) {
     if (iterations_ >= iteration_limit_) return LoopEnd::limit;
@@ -366,29 +446,8 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
       if (refresh_dual_feasible()) return LoopEnd::restart;
       fresh = true;
     }
-    // Pricing: dual steepest edge (Forrest & Goldfarb, "Steepest-edge simplex algorithms for
-    // linear programming", Math. Programming 57, 1992): largest infeasibility^2 / weight.
-    // Only the listed positions can be infeasible; those found feasible leave the list.  Rows
-    // whose pivot proved unusable on fresh factors sit out until the next factorization.
-    int r = -1;
-    double best = 0;
     bool any_rejected = false;
-    for (std::size_t t = 0; t < infeasible_.size(); ++t) {
-      const int k = infeasible_[t];
-      double infeasibility = primal_infeasibility(head_[k]);
-      if (infeasibility <= 0) {
-        listed_[k] = 0;
-        infeasible_[t--] = infeasible_.back();
-        infeasible_.pop_back();
-        continue;
-      }
-      if (rejected_[k]) {
-        any_rejected = true;
-        continue;
-      }
-      double score = infeasibility * infeasibility / weight_[k];
-      if (score > best) best = score, r = k;
-    }
+    const int r = choose_leaving_position(any_rejected);
     if (r < 0 && any_rejected) {
       if (factor_.update_count() == 0) throw NumericalTrouble{"no usable pivot in any infeasible row"};
       if (refresh_dual_feasible()) return LoopEnd::restart;
@@ -405,26 +464,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
     factor_.btran(rho_);
     compute_pivot_row();
 
-    // Breakpoints: reduced costs d_j - t * sign * alpha_j, sign = -1 when leaving to the lower bound.
-    candidates_.clear();
-    const double sign = to_lower ? -1 : 1;
-    for (int j : row_touched_) {
-      if (fixed(j)) continue;
-      double a = sign * alpha_row_[j];
-      if (std::abs(a) <= pivot_tolerance) continue;
-      double range = boxed(j) ? upper_[j] - lower_[j] : inf_;
-      switch (status_[j]) {
-        case VarStatus::at_lower:
-          if (a > 0) candidates_.push_back({j, d_[j], a, range});
-          break;
-        case VarStatus::at_upper:
-          if (a < 0) candidates_.push_back({j, -d_[j], -a, range});
-          break;
-        default:
-          candidates_.push_back({j, a > 0 ? d_[j] : -d_[j], std::abs(a), inf_});
-          break;
-      }
-    }
+    collect_breakpoints(to_lower);
     DualStep step = dual_ratio_test(candidates_, std::abs(delta), dual_tolerance, primal_tolerance);
     if (step.entering < 0) {
       clear_pivot_row();
@@ -464,31 +504,9 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
       for (int j : row_touched_) d_[j] -= theta_dual * alpha_row_[j];
     d_[leaving] = -theta_dual;
 
-    // Bound flips of the passed breakpoints.
-    if (!step.flips.empty()) {
-      flips_.clear();
-      for (int j : step.flips) {
-        VarStatus other = status_[j] == VarStatus::at_lower ? VarStatus::at_upper : VarStatus::at_lower;
-        double change = (other == VarStatus::at_upper ? upper_[j] : lower_[j]) - x_[j];
-        set_nonbasic(j, other);
-        for_column(j, [&](int i, double v) { flips_.add(i, v * change); });
-      }
-      factor_.ftran(flips_);
-      move_basics(flips_, 1);
-    }
+    if (!step.flips.empty()) flip_bounds(step.flips);
     clear_pivot_row();
-
-    // Dual steepest-edge weights (Forrest & Goldfarb 1992, update (30)), tau = B^-1 rho.
-    double rho_norm = 0;
-    for (int i : rho_.index) rho_norm += rho_[i] * rho_[i];
-    tau_.copy_from(rho_);
-    factor_.ftran(tau_);
-    for (int k : column_.index) {
-      if (k == r || column_[k] == 0) continue;
-      double kappa = column_[k] / alpha;
-      weight_[k] = std::max(weight_[k] + kappa * (kappa * rho_norm - 2 * tau_[k]), weight_floor);
-    }
-    weight_[r] = std::max(rho_norm / (alpha * alpha), weight_floor);
+    update_dual_weights(r, alpha);
 
     const double bound = to_lower ? lower_[leaving] : upper_[leaving];
     const double primal_step = (x_[leaving] - bound) / alpha;
@@ -498,7 +516,7 @@ Engine::LoopEnd Engine::dual_loop(const char* phase) {
   }
 }
 
-Engine::LoopEnd Engine::primal_loop() {
+FloatEngine::LoopEnd FloatEngine::primal_loop() {
   while (true) {
     if (iterations_ >= iteration_limit_) return LoopEnd::limit;
     if (polls_say_stop("primal clean-up")) return LoopEnd::stopped;
@@ -570,7 +588,7 @@ Engine::LoopEnd Engine::primal_loop() {
 // same matrix and costs with every bound replaced by a small box, so that every basis is dual
 // feasible once nonbasics sit at the right end; its optimum is a dual feasible basis of the
 // original problem exactly when its objective is zero.
-Engine::LoopEnd Engine::dual_phase_one() {
+FloatEngine::LoopEnd FloatEngine::dual_phase_one() {
   const int total = m_ + n_;
   std::vector<double> saved_lower = lower_, saved_upper = upper_;
   for (int j = 0; j < total; ++j) {
@@ -593,7 +611,7 @@ Engine::LoopEnd Engine::dual_phase_one() {
   return end;
 }
 
-void Engine::perturb_costs() {
+void FloatEngine::perturb_costs() {
   // Random perturbation in the direction that keeps each reduced cost feasible (Koberstein
   // 2005, section 6.2.2; Maros 2003, section 9.6.2), removed before the answer is given.
   std::uniform_real_distribution<double> unit(0.0, 1.0);
@@ -609,7 +627,7 @@ void Engine::perturb_costs() {
 // Small dual infeasibilities left by tolerances are removed (Koberstein 2005, section 6.2.2):
 // boxed variables move to their other bound, the others' costs are shifted, to be undone with
 // the perturbation.  Returns the largest infeasibility and changes nothing when it exceeds `limit`.
-double Engine::remove_dual_infeasibilities(double limit) {
+double FloatEngine::remove_dual_infeasibilities(double limit) {
   double largest = 0;
   for (int j = 0; j < m_ + n_; ++j) largest = std::max(largest, dual_infeasibility(j));
   if (largest > limit) return largest;
@@ -629,12 +647,12 @@ double Engine::remove_dual_infeasibilities(double limit) {
   return largest;
 }
 
-void Engine::restore_costs() {
+void FloatEngine::restore_costs() {
   cost_ = lp_.cost;
   costs_modified_ = false;
 }
 
-FloatStatus Engine::solve() {
+FloatStatus FloatEngine::solve() {
   try {
     refactor();
     compute_primal();

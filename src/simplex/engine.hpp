@@ -19,9 +19,9 @@ struct NumericalTrouble {
   std::string what;
 };
 
-class Engine {
+class FloatEngine {
  public:
-  Engine(const LpData& lp, const FloatOptions& options);
+  FloatEngine(const LpData& lp, const FloatOptions& options);
 
   // Starts from the given statuses (one per variable, exactly `rows` basic), else from the
   // all-logical basis.
@@ -62,7 +62,7 @@ class Engine {
   void raise_stability();  // stricter LU and ratio-test pivots, after accuracy was lost
   void compute_primal();  // also rebuilds the list of infeasible positions
   void note_moved(int k);  // the basic value at position k changed: list it if now infeasible
-  void move_basics(const SparseVector& change, double factor);  // x_B -= factor * change
+  void move_basics(const FloatSparseVector& change, double factor);  // x_B -= factor * change
   void compute_dual();
   void compute_pivot_row();  // alpha_row_ from rho_, over nonbasic variables
   void clear_pivot_row();
@@ -76,6 +76,10 @@ class Engine {
   bool polls_say_stop(const char* phase);
 
   LoopEnd dual_loop(const char* phase);
+  int choose_leaving_position(bool& any_rejected);  // dual pricing; -1 when none qualifies
+  void collect_breakpoints(bool to_lower);          // into candidates_, from the pivot row
+  void flip_bounds(const std::vector<int>& flips);  // passed breakpoints to their other bound
+  void update_dual_weights(int r, double alpha);    // after a pivot at position r
   LoopEnd primal_loop();
   LoopEnd dual_phase_one();
   void perturb_costs();
@@ -99,12 +103,12 @@ class Engine {
   // feasible ones), so dual pricing need not scan every row.
   std::vector<int> infeasible_;
   std::vector<char> listed_;
-  BasisFactor factor_;
+  FloatBasisFactor factor_;
   bool repaired_ = false;
   bool dual_feasibility_lost_ = false;
   int stability_level_ = 0;
 
-  SparseVector rho_, column_, tau_, flips_;  // B^-T e_r, B^-1 a_q, B^-1 rho, B^-1 (flipped columns)
+  FloatSparseVector rho_, column_, tau_, flips_;  // B^-T e_r, B^-1 a_q, B^-1 rho, B^-1 (flipped columns)
   std::vector<double> work_;
   std::vector<double> alpha_row_;
   std::vector<int> row_touched_;

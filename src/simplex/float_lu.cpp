@@ -6,8 +6,8 @@
 namespace plumb::simplex {
 
 struct FloatLu::Factors {
-  detail::BasisFactor lu;
-  detail::BasisFactor::Singularity singular;
+  detail::FloatBasisFactor lu;
+  detail::FloatBasisFactor::Singularity singular;
 };
 
 FloatLu::FloatLu() : factors_(std::make_unique<Factors>()) {}

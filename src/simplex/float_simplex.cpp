@@ -28,7 +28,7 @@ FloatResult solve_float(const model::Model& model, const FloatOptions& options) 
       return result;
     }
   }
-  detail::Engine engine(lp, options);
+  detail::FloatEngine engine(lp, options);
   if (options.warm_start && static_cast<int>(options.warm_start->columns.size()) == n &&
       static_cast<int>(options.warm_start->rows.size()) == m) {
     std::vector<VarStatus> statuses(options.warm_start->columns);

@@ -101,11 +101,11 @@ struct Answer {
 };
 
 Answer by_rational_lu(const BasisSystem& s) {
-  exact::detail::BasisFactor factor;
+  exact::detail::RationalBasisFactor factor;
   factor.factorize(s.m, s.columns);
   Answer answer;
   if (!factor.nonsingular()) return answer;
-  exact::detail::SparseVector in(s.m), out(s.m);
+  exact::detail::RationalSparseVector in(s.m), out(s.m);
   for (int i = 0; i < s.m; ++i)
     if (s.rhs[i] != 0) in.at(i) = s.rhs[i];
   factor.ftran(in, out);

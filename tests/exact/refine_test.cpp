@@ -17,10 +17,10 @@ using Columns = std::vector<SparseColumn>;
 // Exact reference by the rational LU: x with B x = b, or y with B^T y = b.
 std::optional<std::vector<Rational>> reference(int m, const Columns& columns, const std::vector<Rational>& b,
                                                bool transposed) {
-  BasisFactor factor;
+  RationalBasisFactor factor;
   factor.factorize(m, columns);
   if (!factor.nonsingular()) return std::nullopt;
-  SparseVector in(m), out(m);
+  RationalSparseVector in(m), out(m);
   for (int i = 0; i < m; ++i)
     if (b[i] != 0) in.at(i) = b[i];
   if (transposed) factor.btran(in, out);

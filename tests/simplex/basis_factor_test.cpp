@@ -16,8 +16,8 @@
 namespace {
 
 using plumb::numeric::Rational;
-using plumb::simplex::detail::BasisFactor;
-using plumb::simplex::detail::SparseVector;
+using plumb::simplex::detail::FloatBasisFactor;
+using plumb::simplex::detail::FloatSparseVector;
 using plumb::simplex::detail::SparseVectors;
 
 // A random sparse m x m matrix with small integer entries and a nonzero diagonal (so it is
@@ -79,10 +79,12 @@ std::optional<std::vector<Rational>> exact_solve(const std::vector<std::vector<i
 // The factor's two ways of solving: always the depth-first sparse path, or always dense loops.
 enum class Path { sparse, dense };
 
-void use_path(BasisFactor& factor, Path path) { factor.sparse_density = path == Path::sparse ? 1.0 : 0.0; }
+void use_path(FloatBasisFactor& factor, Path path) {
+  factor.sparse_density = path == Path::sparse ? 1.0 : 0.0;
+}
 
-SparseVector sparse_of(const std::vector<int>& b) {
-  SparseVector v;
+FloatSparseVector sparse_of(const std::vector<int>& b) {
+  FloatSparseVector v;
   v.reset(static_cast<int>(b.size()));
   for (std::size_t i = 0; i < b.size(); ++i)
     if (b[i] != 0) v.add(static_cast<int>(i), b[i]);
@@ -90,7 +92,7 @@ SparseVector sparse_of(const std::vector<int>& b) {
 }
 
 // Each nonzero is listed exactly once in a solve's result.
-void expect_index_exact(const SparseVector& v, const std::string& context) {
+void expect_index_exact(const FloatSparseVector& v, const std::string& context) {
   std::vector<int> listed(v.values.size(), 0);
   for (int i : v.index) ++listed[i];
   for (std::size_t i = 0; i < v.values.size(); ++i) {
@@ -103,15 +105,15 @@ void expect_index_exact(const SparseVector& v, const std::string& context) {
 
 // ftran and btran of b (dense and sparse interfaces) agree with the exact solutions of A x = b
 // and A^T y = b.
-void expect_solves_exactly(const BasisFactor& factor, const std::vector<std::vector<int>>& a, const std::vector<int>& b,
-                           double tolerance, const std::string& context) {
+void expect_solves_exactly(const FloatBasisFactor& factor, const std::vector<std::vector<int>>& a,
+                           const std::vector<int>& b, double tolerance, const std::string& context) {
   auto x = exact_solve(a, b, false);
   auto y = exact_solve(a, b, true);
   ASSERT_TRUE(x && y) << context;
   std::vector<double> fx(b.begin(), b.end()), by(b.begin(), b.end());
   factor.ftran(fx);
   factor.btran(by);
-  SparseVector sx = sparse_of(b), sy = sparse_of(b);
+  FloatSparseVector sx = sparse_of(b), sy = sparse_of(b);
   factor.ftran(sx);
   factor.btran(sy);
   expect_index_exact(sx, context + " sparse ftran");
@@ -126,7 +128,7 @@ void expect_solves_exactly(const BasisFactor& factor, const std::vector<std::vec
 }
 
 // Source of truth: exact rational elimination (the definition of the solution, common practice).
-TEST(BasisFactor, SolvesMatchExactEliminationOnRandomSparseMatrices) {
+TEST(FloatBasisFactor, SolvesMatchExactEliminationOnRandomSparseMatrices) {
   std::mt19937 random(7);
   std::uniform_int_distribution<int> rhs(-5, 5);
   int checked = 0;
@@ -137,7 +139,7 @@ TEST(BasisFactor, SolvesMatchExactEliminationOnRandomSparseMatrices) {
     for (int& v : b) v = rhs(random);
     if (!exact_solve(a, b, false)) continue;
     for (Path path : {Path::sparse, Path::dense}) {
-      BasisFactor factor;
+      FloatBasisFactor factor;
       use_path(factor, path);
       ASSERT_TRUE(factor.factorize(m, columns_of(a)).empty()) << "trial " << trial;
       expect_solves_exactly(factor, a, b, 1e-9, "trial " + std::to_string(trial));
@@ -149,8 +151,9 @@ TEST(BasisFactor, SolvesMatchExactEliminationOnRandomSparseMatrices) {
 
 // Replaces column p of `a` by `column` through ftran_entering and update; false when the
 // changed matrix would be close to singular (then nothing changes).
-bool replace_column(BasisFactor& factor, std::vector<std::vector<int>>& a, int p, const std::vector<int>& column) {
-  SparseVector alpha = sparse_of(column);
+bool replace_column(FloatBasisFactor& factor, std::vector<std::vector<int>>& a, int p,
+                    const std::vector<int>& column) {
+  FloatSparseVector alpha = sparse_of(column);
   factor.ftran_entering(alpha);
   if (std::abs(alpha[p]) < 0.1) return false;
   EXPECT_TRUE(factor.update(p, alpha[p]));
@@ -161,13 +164,13 @@ bool replace_column(BasisFactor& factor, std::vector<std::vector<int>>& a, int p
 // Replacing columns one at a time through Forrest-Tomlin updates must solve like a fresh
 // factorization of the changed matrix; checked against exact elimination after each update,
 // on both solve paths.
-TEST(BasisFactor, UpdatesSolveTheChangedMatrix) {
+TEST(FloatBasisFactor, UpdatesSolveTheChangedMatrix) {
   for (Path path : {Path::sparse, Path::dense}) {
     std::mt19937 random(11);
     std::uniform_int_distribution<int> value(-9, 9);
     const int m = 15;
     auto a = random_matrix(m, 0.2, random);
-    BasisFactor factor;
+    FloatBasisFactor factor;
     use_path(factor, path);
     ASSERT_TRUE(factor.factorize(m, columns_of(a)).empty());
     int updates = 0;
@@ -188,7 +191,7 @@ TEST(BasisFactor, UpdatesSolveTheChangedMatrix) {
 
 // Larger and sparser, like a simplex basis (mostly unit columns, a few structural ones): a long
 // run of updates, then the relative residual of B x = b and B^T y = b, sparse against dense.
-TEST(BasisFactor, LongUpdateRunsKeepSmallResiduals) {
+TEST(FloatBasisFactor, LongUpdateRunsKeepSmallResiduals) {
   std::mt19937 random(5);
   std::uniform_int_distribution<int> value(-9, 9);
   const int m = 300;
@@ -200,7 +203,7 @@ TEST(BasisFactor, LongUpdateRunsKeepSmallResiduals) {
     column[p] = 1 + random() % 9;
     return column;
   };
-  BasisFactor sparse, dense;
+  FloatBasisFactor sparse, dense;
   use_path(sparse, Path::sparse);
   use_path(dense, Path::dense);
   sparse.update_limit = dense.update_limit = 1000;
@@ -220,7 +223,7 @@ TEST(BasisFactor, LongUpdateRunsKeepSmallResiduals) {
   std::vector<int> b(m, 0);
   for (int t = 0; t < 5; ++t) b[random() % m] = value(random);
   for (bool transposed : {false, true}) {
-    SparseVector xs = sparse_of(b), xd = sparse_of(b);
+    FloatSparseVector xs = sparse_of(b), xd = sparse_of(b);
     if (transposed) sparse.btran(xs), dense.btran(xd);
     else sparse.ftran(xs), dense.ftran(xd);
     expect_index_exact(xs, "sparse");
@@ -242,11 +245,11 @@ TEST(BasisFactor, LongUpdateRunsKeepSmallResiduals) {
 
 // An update whose pivot disagrees with the alpha given (a factor gone wrong, or a column that
 // makes the basis singular) is refused, and a fresh factorization is then due.
-TEST(BasisFactor, UpdateRefusesAPivotThatDisagreesWithAlpha) {
+TEST(FloatBasisFactor, UpdateRefusesAPivotThatDisagreesWithAlpha) {
   std::vector<std::vector<int>> a = {{2, 0, 1}, {0, 3, 0}, {1, 0, 4}};
-  BasisFactor factor;
+  FloatBasisFactor factor;
   ASSERT_TRUE(factor.factorize(3, columns_of(a)).empty());
-  SparseVector alpha = sparse_of({0, 3, 0});  // column 1 again: alpha = e_1
+  FloatSparseVector alpha = sparse_of({0, 3, 0});  // column 1 again: alpha = e_1
   factor.ftran_entering(alpha);
   EXPECT_NEAR(alpha[1], 1.0, 1e-15);
   EXPECT_FALSE(factor.update(1, 2.0));
@@ -262,14 +265,14 @@ TEST(BasisFactor, UpdateRefusesAPivotThatDisagreesWithAlpha) {
 }
 
 // A fresh factorization is due after update_limit updates.
-TEST(BasisFactor, RefactorizationIsDueAfterTheUpdateLimit) {
+TEST(FloatBasisFactor, RefactorizationIsDueAfterTheUpdateLimit) {
   std::vector<std::vector<int>> a = {{1, 0}, {0, 1}};
-  BasisFactor factor;
+  FloatBasisFactor factor;
   factor.update_limit = 3;
   ASSERT_TRUE(factor.factorize(2, columns_of(a)).empty());
   for (int k = 0; k < 3; ++k) {
     EXPECT_FALSE(factor.refactor_due());
-    SparseVector alpha = sparse_of({k + 2, 1});
+    FloatSparseVector alpha = sparse_of({k + 2, 1});
     factor.ftran_entering(alpha);
     EXPECT_TRUE(factor.update(0, alpha[0]));
   }
@@ -278,20 +281,20 @@ TEST(BasisFactor, RefactorizationIsDueAfterTheUpdateLimit) {
 
 // A nearly singular matrix (one column within 1e-13 of a multiple of another) counts as
 // singular: its last pivot falls below the absolute tolerance (common practice).
-TEST(BasisFactor, NearlySingularMatrixIsReportedSingular) {
+TEST(FloatBasisFactor, NearlySingularMatrixIsReportedSingular) {
   SparseVectors columns;
   columns.push(0, 1), columns.push(1, 2), columns.close();
   columns.push(0, 2), columns.push(1, 4 + 1e-13), columns.close();
-  BasisFactor factor;
+  FloatBasisFactor factor;
   auto singular = factor.factorize(2, columns);
   EXPECT_EQ(singular.positions.size(), 1u);
   EXPECT_TRUE(factor.refactor_due());
 }
 
 // A singular matrix: the factorization names as many positions as rows it could not pivot.
-TEST(BasisFactor, ReportsSingularPositionsAndRows) {
+TEST(FloatBasisFactor, ReportsSingularPositionsAndRows) {
   std::vector<std::vector<int>> a = {{1, 2, 3}, {2, 4, 6}, {0, 0, 1}};  // row 2 = 2 * row 1
-  BasisFactor factor;
+  FloatBasisFactor factor;
   auto singular = factor.factorize(3, columns_of(a));
   EXPECT_EQ(singular.positions.size(), 1u);
   EXPECT_EQ(singular.rows.size(), 1u);
