@@ -21,7 +21,7 @@ constexpr const char* part_names[] = {"objective", "x", "y", "ray"};
 constexpr const char* status_list = "one of \"optimal\", \"infeasible\", \"unbounded\", \"feasible\"";
 
 bool is_schema_key(std::string_view key) {
-  if (key == "plumb_certificate" || key == "model" || key == "status") return true;
+  if (key == "plumb_certificate" || key == "model" || key == "status" || key == "farkas") return true;
   for (const char* name : part_names)
     if (key == name) return true;
   return false;
@@ -53,6 +53,17 @@ void write_values(std::string& out, const char* key, const NamedValues& values) 
   out += first ? "}" : "\n  }";
 }
 
+void write_farkas(std::string& out, const std::vector<FarkasTerm>& terms) {
+  out += ",\n  \"farkas\": [";
+  for (std::size_t k = 0; k < terms.size(); ++k) {
+    const FarkasTerm& t = terms[k];
+    out += (k == 0 ? "\n    " : ",\n    ");
+    out += "{\"kind\": \"" + to_string(t.entry.kind) + "\", \"name\": " + quoted(t.entry.name) +
+           ", \"side\": \"" + to_string(t.entry.limit) + "\", \"multiplier\": " + quoted(t.multiplier) + "}";
+  }
+  out += terms.empty() ? "]" : "\n  ]";
+}
+
 class Reader {
  public:
   Reader(const ReadLimits& limits) : limits_(limits) {}
@@ -69,6 +80,17 @@ class Reader {
     c.status = *parsed_status;
     c.model = identity(required(root, "", "model", "a \"model\" object"));
     Parts parts = parts_of(c.status);
+    // An infeasible certificate proves with "y" or with "farkas", one of the two.
+    bool explicit_farkas = c.status == Status::infeasible && root.contains("farkas");
+    if (root.contains("farkas") && c.status != Status::infeasible)
+      throw SchemaError{"/farkas", "a \"farkas\" in a " + to_string(c.status) + " certificate",
+                        "no \"farkas\": only an infeasible certificate has one"};
+    if (explicit_farkas) {
+      if (root.contains("y"))
+        throw SchemaError{"/y", "both \"y\" and \"farkas\"", "one proof: \"y\" or \"farkas\""};
+      parts.y = false;
+      c.farkas = farkas_terms(root.at("farkas"));
+    }
     for (const char* name : part_names) {
       bool present = root.contains(name);
       if (present && !has_part(parts, name))
@@ -117,6 +139,32 @@ class Reader {
     return id;
   }
 
+  std::vector<FarkasTerm> farkas_terms(const Json& array) const {
+    if (!array.is_array())
+      throw SchemaError{"/farkas", describe(array),
+                        "an array of {\"kind\", \"name\", \"side\", \"multiplier\"} objects"};
+    std::vector<FarkasTerm> terms;
+    terms.reserve(array.size());
+    for (std::size_t k = 0; k < array.size(); ++k) {
+      const Json& item = array[k];
+      std::string at = "/farkas/" + std::to_string(k);
+      if (!item.is_object() || item.size() != 4)
+        throw SchemaError{at, describe(item),
+                          "an object of exactly \"kind\", \"name\", \"side\" and \"multiplier\""};
+      std::string kind = text(required(item, at, "kind", "a \"kind\""), at + "/kind");
+      std::string side = text(required(item, at, "side", "a \"side\""), at + "/side");
+      if (kind != "row" && kind != "column")
+        throw SchemaError{at + "/kind", describe(item.at("kind")), "\"row\" or \"column\""};
+      if (side != "lower" && side != "upper")
+        throw SchemaError{at + "/side", describe(item.at("side")), "\"lower\" or \"upper\""};
+      terms.push_back({{kind == "row" ? EntryKind::row : EntryKind::column,
+                        text(required(item, at, "name", "a \"name\""), at + "/name"),
+                        side == "lower" ? Limit::lower : Limit::upper},
+                       rational(required(item, at, "multiplier", "a \"multiplier\""), at + "/multiplier")});
+    }
+    return terms;
+  }
+
   NamedValues values(const Json& object, const std::string& pointer) const {
     if (!object.is_object())
       throw SchemaError{pointer, describe(object), "an object of names and rationals, e.g. {\"x1\": \"3/2\"}"};
@@ -146,6 +194,9 @@ std::string to_string(Status status) {
   return "unknown";
 }
 
+std::string to_string(EntryKind kind) { return kind == EntryKind::row ? "row" : "column"; }
+std::string to_string(Limit limit) { return limit == Limit::lower ? "lower" : "upper"; }
+
 std::optional<Status> status_from_string(std::string_view text) {
   for (Status s : {Status::optimal, Status::infeasible, Status::unbounded, Status::feasible})
     if (text == to_string(s)) return s;
@@ -164,8 +215,11 @@ Parts parts_of(Status status) {
 
 std::string to_json_text(const Certificate& c) {
   Parts parts = parts_of(c.status);
-  if (parts.objective != c.objective.has_value() || (!parts.x && !c.x.empty()) || (!parts.y && !c.y.empty()) ||
-      (!parts.ray && !c.ray.empty()))
+  bool explicit_farkas = !c.farkas.empty();
+  if (explicit_farkas) parts.y = false;
+  if (parts.objective != c.objective.has_value() || (!parts.x && !c.x.empty()) ||
+      (!parts.y && !c.y.empty()) || (!parts.ray && !c.ray.empty()) ||
+      (explicit_farkas && c.status != Status::infeasible))
     throw std::invalid_argument("a " + to_string(c.status) + " certificate holds parts its schema does not give it");
   std::string out = "{\n  \"plumb_certificate\": 1,\n  \"model\": {\n";
   out += "    \"file\": " + quoted(c.model.file) + ",\n";
@@ -178,6 +232,7 @@ std::string to_json_text(const Certificate& c) {
   if (parts.x) write_values(out, "x", c.x);
   if (parts.y) write_values(out, "y", c.y);
   if (parts.ray) write_values(out, "ray", c.ray);
+  if (explicit_farkas) write_farkas(out, c.farkas);
   std::vector<std::string> extra_keys;
   for (const auto& item : c.extra.items()) extra_keys.push_back(item.key());
   std::sort(extra_keys.begin(), extra_keys.end());

@@ -221,6 +221,70 @@ Verdict verify_infeasible(const Model& m, const Certificate& c) {
                     amount(rows_force) + ", while the bounds keep y.Ax <= " + amount(bounds_allow) + ")", ""};
 }
 
+// The entry's side or bound, which must be finite: a multiplier on an infinite limit proves nothing.
+const Rational& entry_limit(const Model& m, const certificate::Entry& e, int index) {
+  const Side& side =
+      e.kind == certificate::EntryKind::row
+          ? (e.limit == certificate::Limit::lower ? m.rows[index].lower : m.rows[index].upper)
+          : (e.limit == certificate::Limit::lower ? m.columns[index].lower : m.columns[index].upper);
+  if (!side)
+    throw Failure{"farkas: the " + certificate::to_string(e.limit) + " " +
+                  (e.kind == certificate::EntryKind::row ? "side of " : "bound of ") +
+                  (e.kind == certificate::EntryKind::row ? row_text(m, index)() : column_text(m, index)()) +
+                  " is infinite, so a multiplier on it proves nothing"};
+  return *side;
+}
+
+// Farkas in explicit form: each entry written as g(x) >= value (an upper one negated), multipliers
+// >= 0; if the weighted g sum to zero in every column and the weighted values to more than zero,
+// then every x meeting the entries would give 0 >= a positive number.
+Verdict verify_explicit_farkas(const Model& m, const Certificate& c) {
+  std::vector<Rational> combined(static_cast<std::size_t>(m.column_count()));
+  Rational force = 0;
+  std::vector<bool> seen(static_cast<std::size_t>(2 * (m.row_count() + m.column_count())), false);
+  for (const certificate::FarkasTerm& t : c.farkas) {
+    const certificate::Entry& e = t.entry;
+    bool row = e.kind == certificate::EntryKind::row;
+    auto index = row ? m.find_row(e.name) : m.find_column(e.name);
+    if (!index)
+      throw Failure{std::string("farkas names ") + (row ? "row " : "column ") + detail::shown_name(e.name) +
+                    ", which the model does not have"};
+    std::size_t slot = 2 * static_cast<std::size_t>(row ? *index : m.row_count() + *index) +
+                       (e.limit == certificate::Limit::upper);
+    if (seen[slot])
+      throw Failure{"farkas lists the " + certificate::to_string(e.limit) + " limit of " +
+                    detail::shown_name(e.name) + " twice"};
+    seen[slot] = true;
+    if (t.multiplier < 0)
+      throw Failure{"farkas: the multiplier on the " + certificate::to_string(e.limit) + " limit of " +
+                    detail::shown_name(e.name) + " is " + amount(t.multiplier) +
+                    ", and multipliers must be at least 0"};
+    const Rational& limit = entry_limit(m, e, *index);
+    Rational weight = e.limit == certificate::Limit::lower ? t.multiplier : Rational(-t.multiplier);
+    force += weight * limit;
+    if (!row) {
+      combined[static_cast<std::size_t>(*index)] += weight;
+      continue;
+    }
+    auto columns = m.matrix.row_columns(*index);
+    auto positions = m.matrix.row_positions(*index);
+    for (std::size_t k = 0; k < columns.size(); ++k)
+      combined[static_cast<std::size_t>(columns[k])] += weight * m.matrix.value(positions[k]);
+  }
+  for (int j = 0; j < m.column_count(); ++j)
+    if (combined[static_cast<std::size_t>(j)] != 0)
+      throw Failure{"farkas: the weighted entries do not cancel: " + column_text(m, j)() +
+                    " keeps the coefficient " + amount(combined[static_cast<std::size_t>(j)]) +
+                    ", so their sum still depends on x"};
+  if (force <= 0)
+    throw Failure{"no contradiction: the weighted entries sum to 0 >= " + amount(force) +
+                  ", which holds; infeasibility needs the right-hand side above 0"};
+  return {true,
+          "infeasible: no x meets every row and bound (Farkas: " + std::to_string(c.farkas.size()) +
+              " weighted sides and bounds add up to 0 >= " + amount(force) + ")",
+          ""};
+}
+
 Verdict verify_unbounded(const Model& m, const Certificate& c, const detail::Objective& objective) {
   std::vector<Rational> x = dense(m, c.x, Kind::column, "x");
   std::vector<Rational> r = dense(m, c.ray, Kind::column, "ray");
@@ -256,7 +320,8 @@ Verdict verify(const model::Model& m, const certificate::Certificate& c) {
     detail::Objective objective(m, c.model.objective_constant);
     switch (c.status) {
       case Status::optimal: return verify_optimal(m, c, objective);
-      case Status::infeasible: return verify_infeasible(m, c);
+      case Status::infeasible:
+        return c.farkas.empty() ? verify_infeasible(m, c) : verify_explicit_farkas(m, c);
       case Status::unbounded: return verify_unbounded(m, c, objective);
       case Status::feasible: return verify_feasible(m, c, objective);
     }

@@ -139,11 +139,33 @@ certificate::NamedValues named_nonzeros(const std::vector<Rational>& values, aut
 }
 
 // Makes a result wrong in a way the checker must see: an objective one off, or a Farkas vector
-// or ray of zeros.
+// (in either form) or ray of zeros.
 void spoil(Solution& solution) {
   solution.objective += 1;
+  for (certificate::FarkasTerm& term : solution.farkas) term.multiplier = 0;
   for (auto* values : {&solution.y, &solution.ray})
     if (solution.outcome != Outcome::optimal) std::fill(values->begin(), values->end(), Rational(0));
+}
+
+// The first row or column whose lower limit is above its upper one, as an infeasible solution
+// proven by those two limits alone (lower - upper > 0 while the entries cancel), or nothing.
+std::optional<Solution> crossed_limits(const model::Model& model) {
+  auto crossed = [&](certificate::EntryKind kind, const std::string& name) {
+    Solution solution;
+    solution.outcome = Outcome::infeasible;
+    solution.y.assign(model.rows.size(), Rational(0));
+    solution.farkas = {{{kind, name, certificate::Limit::lower}, Rational(1)},
+                       {{kind, name, certificate::Limit::upper}, Rational(1)}};
+    solution.stats.proof = "crossed limits";
+    return solution;
+  };
+  for (const model::Row& row : model.rows)
+    if (row.lower && row.upper && *row.lower > *row.upper)
+      return crossed(certificate::EntryKind::row, row.name);
+  for (const model::Column& column : model.columns)
+    if (column.lower && column.upper && *column.lower > *column.upper)
+      return crossed(certificate::EntryKind::column, column.name);
+  return std::nullopt;
 }
 
 }  // namespace
@@ -151,6 +173,7 @@ void spoil(Solution& solution) {
 Solution solve(const model::Model& model, const SolveOptions& options) { return detail::solve_from(model, options, nullptr); }
 
 Solution detail::solve_from(const model::Model& model, const SolveOptions& options, const simplex::Basis* float_start) {
+  if (std::optional<Solution> crossed = crossed_limits(model)) return *crossed;
   if (options.warm_start) return run_exact(model, options, options.warm_start);
   if (options.method == Method::exact) return run_exact(model, options, nullptr);
 
@@ -195,7 +218,10 @@ certificate::Certificate make_certificate(const model::Model& model, const Solut
       break;
     case Outcome::infeasible:
       proof.status = certificate::Status::infeasible;
-      proof.y = named_nonzeros(solution.y, row_name);
+      if (solution.farkas.empty())
+        proof.y = named_nonzeros(solution.y, row_name);
+      else
+        proof.farkas = solution.farkas;
       break;
     case Outcome::unbounded:
       proof.status = certificate::Status::unbounded;

@@ -512,7 +512,7 @@ report::Section audit_section(const AuditSection& audit) {
 }
 
 // The conditions of docs/certificates.md, short, for someone checking without plumb.
-std::vector<std::string> conditions(exact::Outcome outcome) {
+std::vector<std::string> conditions(exact::Outcome outcome, bool explicit_farkas) {
   std::vector<std::string> common = {
       "Work in exact fractions throughout; never round. Read every number of the model file as the exact "
       "decimal it is written as.",
@@ -528,6 +528,17 @@ std::vector<std::string> conditions(exact::Outcome outcome) {
                      "The stated objective equals `c.x` plus the objective constant."});
       break;
     case exact::Outcome::infeasible:
+      if (explicit_farkas) {
+        common.insert(
+            common.end(),
+            {"Each entry of `farkas` names a finite row side or column bound, once, with a multiplier of at "
+             "least 0.",
+             "Write each entry as `g(x) >= limit` (a lower side or bound as it is, an upper one negated) and "
+             "add them up weighted by their multipliers: every column's coefficient in the sum is 0, and "
+             "the sum of the weighted limits is above 0. Any plan would then give `0 >= ` a positive "
+             "number, which is impossible (Farkas' lemma)."});
+        break;
+      }
       common.insert(common.end(),
                     {"`y_i > 0` only where `L_i` is finite, `y_i < 0` only where `U_i` is.",
                      "With `a = A^T y`: `a_j > 0` only where `u_j` is finite, `a_j < 0` only where `l_j` is.",
@@ -579,7 +590,7 @@ report::Section recheck_section(const ReportInput& input) {
   blocks.push_back(report::paragraph("Without plumb, anyone can check the certificate by hand or with any exact-"
                                      "fraction arithmetic. It proves its status when all of these hold (in full "
                                      "in docs/certificates.md):"));
-  blocks.push_back(report::list(conditions(s.outcome)));
+  blocks.push_back(report::list(conditions(s.outcome, !s.farkas.empty())));
   return {"recheck", "How to check it again", std::move(blocks)};
 }
 
@@ -647,10 +658,62 @@ AuditSection audit_section_from(const model::Model& model, const audit::Audit& a
   return section;
 }
 
+namespace {
+
+// The conflict of Farkas multipliers on single sides and bounds (the certificate's `farkas`):
+// each entry with its multiplier; weighted, the entries cancel and their limits add up to a
+// positive number.
+ConflictSection conflict_from_terms(const model::Model& model,
+                                    const std::vector<certificate::FarkasTerm>& terms) {
+  ConflictSection conflict;
+  conflict.source = "the solve's Farkas multipliers on single sides and bounds (the certificate's `farkas`)";
+  Rational force = 0;
+  for (const certificate::FarkasTerm& t : terms) {
+    bool lower = t.entry.limit == certificate::Limit::lower;
+    const char* relation = lower ? " >= " : " <= ";
+    if (t.entry.kind == certificate::EntryKind::row) {
+      int i = *model.find_row(t.entry.name);
+      const model::Row& row = model.rows[static_cast<std::size_t>(i)];
+      const Rational& side = lower ? *row.lower : *row.upper;
+      ConflictMember member{row.name,
+                            row.label.statement,
+                            expression_text(model, i, appendix_terms) + relation + coefficient_text(side),
+                            t.multiplier,
+                            {}};
+      auto columns = model.matrix.row_columns(i);
+      auto positions = model.matrix.row_positions(i);
+      for (std::size_t k = 0; k < columns.size(); ++k)
+        member.terms.push_back(
+            {model.columns[static_cast<std::size_t>(columns[k])].name, model.matrix.value(positions[k])});
+      force += (lower ? t.multiplier : Rational(-t.multiplier)) * side;
+      conflict.members.push_back(std::move(member));
+    } else {
+      const model::Column& column = model.columns[static_cast<std::size_t>(*model.find_column(t.entry.name))];
+      const Rational& bound = lower ? *column.lower : *column.upper;
+      const model::Label& label = lower ? column.lower_label : column.upper_label;
+      conflict.members.push_back({column.name,
+                                  (label.empty() ? column.label : label).statement,
+                                  column.name + relation + coefficient_text(bound),
+                                  t.multiplier,
+                                  {}});
+      force += (lower ? t.multiplier : Rational(-t.multiplier)) * bound;
+    }
+  }
+  conflict.derivation = {
+      "Write each limit as (its left side) >= (its limit), an upper one negated, weight it by its multiplier",
+      "and add them up: the left sides cancel, and the limits give 0 >= " + value_text(force) +
+          ": no plan can meet them all.",
+  };
+  return conflict;
+}
+
+}  // namespace
+
 std::optional<ConflictSection> conflict_from_farkas(const model::Model& model, const exact::CertifiedSolution& result) {
   const exact::Solution& s = result.solution;
   if (s.outcome != exact::Outcome::infeasible) return std::nullopt;
   ConflictSection conflict;
+  if (!s.farkas.empty()) return conflict_from_terms(model, s.farkas);
   conflict.source = "the solve's Farkas multipliers (the certificate's `y`)";
   std::vector<Rational> combined(static_cast<std::size_t>(model.column_count()), Rational(0));
   Rational lower_sum = 0, upper_sum = 0;

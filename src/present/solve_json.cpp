@@ -60,7 +60,17 @@ nlohmann::ordered_json solve_json(const model::Model& model, const exact::Certif
     out["x"] = named(proof.x);
     out["y"] = named(proof.y);
   } else if (s.outcome == exact::Outcome::infeasible) {
-    out["farkas_y"] = named(proof.y);
+    if (proof.farkas.empty()) {
+      out["farkas_y"] = named(proof.y);
+    } else {
+      nlohmann::ordered_json terms = nlohmann::ordered_json::array();
+      for (const certificate::FarkasTerm& t : proof.farkas)
+        terms.push_back({{"kind", certificate::to_string(t.entry.kind)},
+                         {"name", t.entry.name},
+                         {"side", certificate::to_string(t.entry.limit)},
+                         {"multiplier", numeric::to_fraction(t.multiplier)}});
+      out["farkas"] = std::move(terms);
+    }
   } else if (s.outcome == exact::Outcome::unbounded) {
     out["x"] = named(proof.x);
     out["ray"] = named(proof.ray);

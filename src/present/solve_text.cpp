@@ -90,6 +90,14 @@ void write_solve_text(const model::Model& model, const exact::CertifiedSolution&
         << " columns" << (options.all ? "" : " non-zero")
         << (options.all || static_cast<int>(indices.size()) == model.column_count() ? "" : "; the rest are 0") << "\n";
     write_values(out, indices, s.x, column_name, column_label, true, no_limit);
+  } else if (s.outcome == exact::Outcome::infeasible && !s.farkas.empty()) {
+    out << "proof      " << s.farkas.size()
+        << " sides and bounds that cannot hold together, each with its multiplier:\n";
+    for (const certificate::FarkasTerm& t : s.farkas)
+      out << "             " << certificate::to_string(t.entry.kind) << " " << t.entry.name << ", "
+          << certificate::to_string(t.entry.limit)
+          << (t.entry.kind == certificate::EntryKind::row ? " side" : " bound") << "  x "
+          << numeric::exact_and_decimal(t.multiplier) << "\n";
   } else if (s.outcome == exact::Outcome::infeasible) {
     auto indices = listed(s.y, false);
     out << "proof      Farkas multipliers on " << indices.size()

@@ -220,6 +220,60 @@ TEST(CertificateReader, RefusesMissingOrMisplacedParts) {
   expect_refused(R"({"plumb_certificate": 1, "status": "feasible", "x": {}})", "found no \"model\"");
 }
 
+// Farkas multipliers on single sides and bounds: an infeasible certificate's alternative to "y".
+TEST(CertificateReader, ExplicitFarkasRoundTripsAndIsStrict) {
+  using plumb::certificate::EntryKind;
+  using plumb::certificate::Limit;
+  Certificate c;
+  c.model = {"crossed.plumb", "", 1, 1, Rational(0)};
+  c.status = Status::infeasible;
+  c.farkas = {{{EntryKind::row, "r 1", Limit::lower}, Rational(3, 2)},
+              {{EntryKind::column, "x", Limit::upper}, 1}};
+  std::string text = to_json_text(c);
+  EXPECT_NE(
+      text.find(
+          "  \"farkas\": [\n    {\"kind\": \"row\", \"name\": \"r 1\", \"side\": \"lower\", \"multiplier\": "
+          "\"3/2\"},\n"
+          "    {\"kind\": \"column\", \"name\": \"x\", \"side\": \"upper\", \"multiplier\": \"1\"}\n  ]\n"),
+      std::string::npos)
+      << text;
+  EXPECT_EQ(text.find("\"y\""), std::string::npos);
+  Certificate back = parse_certificate(text, "c.json");
+  ASSERT_EQ(back.farkas.size(), 2u);
+  EXPECT_EQ(back.farkas[0].entry, c.farkas[0].entry);
+  EXPECT_EQ(back.farkas[0].multiplier, Rational(3, 2));
+  EXPECT_EQ(to_json_text(back), text);
+
+  const std::string head =
+      R"({"plumb_certificate": 1, "model": {"file": "m", "sha256": "", "rows": 1, "columns": 1}, )";
+  const std::string term = R"({"kind": "row", "name": "r", "side": "lower", "multiplier": "1"})";
+  expect_refused(head + R"("status": "infeasible", "y": {}, "farkas": [)" + term + "]}",
+                 "both \"y\" and \"farkas\"");
+  expect_refused(
+      head + R"("status": "optimal", "objective": "0", "x": {}, "y": {}, "farkas": [)" + term + "]}",
+      "only an infeasible certificate has one");
+  expect_refused(head + R"("status": "infeasible", "farkas": {}})", "an array of");
+  expect_refused(
+      head +
+          R"("status": "infeasible", "farkas": [{"kind": "bound", "name": "r", "side": "lower", "multiplier": "1"}]})",
+      "\"row\" or \"column\"");
+  expect_refused(
+      head +
+          R"("status": "infeasible", "farkas": [{"kind": "row", "name": "r", "side": "left", "multiplier": "1"}]})",
+      "\"lower\" or \"upper\"");
+  expect_refused(
+      head +
+          R"("status": "infeasible", "farkas": [{"kind": "row", "name": "r", "side": "lower", "multiplier": 1}]})",
+      "never a JSON number");
+  expect_refused(
+      head + R"("status": "infeasible", "farkas": [{"kind": "row", "name": "r", "side": "lower"}]})",
+      "exactly \"kind\", \"name\", \"side\" and \"multiplier\"");
+  Certificate optimal = c;
+  optimal.status = Status::optimal;
+  optimal.objective = Rational(0);
+  EXPECT_THROW(to_json_text(optimal), std::invalid_argument);
+}
+
 TEST(CertificateReader, RefusesWrongModelFields) {
   auto with_model = [](const std::string& model) {
     return R"({"plumb_certificate": 1, "status": "feasible", "x": {}, "model": )" + model + "}";

@@ -195,6 +195,71 @@ TEST(CheckInfeasible, FarkasMultipliers) {
   for (const Mutation& mutation : plumb::testing::provable_mutations(m, c)) expect_rejected(m, mutation);
 }
 
+// The same proof on single sides and bounds, worked by hand: -(a + b) >= -3 (r1's upper side),
+// a - b >= 6 (r2's lower side) and 2 x (b >= 0) add up to 0 >= 3.
+const char* infeasible_pair_explicit = R"({
+  "plumb_certificate": 1,
+  "model": {"file": "infeasible-pair", "sha256": "", "rows": 2, "columns": 2},
+  "status": "infeasible",
+  "farkas": [
+    {"kind": "row", "name": "r1", "side": "upper", "multiplier": "1"},
+    {"kind": "row", "name": "r2", "side": "lower", "multiplier": "1"},
+    {"kind": "column", "name": "b", "side": "lower", "multiplier": "2"}
+  ]
+})";
+
+TEST(CheckInfeasible, ExplicitFarkasOnSidesAndBounds) {
+  using plumb::certificate::EntryKind;
+  using plumb::certificate::Limit;
+  auto m = infeasible_pair();
+  Certificate c = read(infeasible_pair_explicit);
+  auto verdict = verify(m, c);
+  ASSERT_TRUE(verdict.valid) << verdict.failure;
+  EXPECT_EQ(
+      verdict.proven,
+      "infeasible: no x meets every row and bound (Farkas: 3 weighted sides and bounds add up to 0 >= 3)");
+  auto negative = c;
+  negative.farkas[1].multiplier = -1;
+  expect_rejected(m, {"a negative multiplier", negative, "multipliers must be at least 0"});
+  auto dropped = c;
+  dropped.farkas.pop_back();
+  expect_rejected(m, {"b's bound dropped", dropped, "column b keeps the coefficient -2"});
+  auto infinite = c;
+  infinite.farkas.push_back({{EntryKind::column, "a", Limit::upper}, q(0)});
+  expect_rejected(m,
+                  {"a's missing upper bound", infinite, "is infinite, so a multiplier on it proves nothing"});
+  auto unknown = c;
+  unknown.farkas[0].entry.name = "r9";
+  expect_rejected(m, {"an unknown row", unknown, "farkas names row r9, which the model does not have"});
+  auto twice = c;
+  twice.farkas.push_back(twice.farkas[0]);
+  expect_rejected(m, {"an entry twice", twice, "lists the upper limit of r1 twice"});
+  auto as_column = c;
+  as_column.farkas[2].entry.kind = EntryKind::row;  // no row is called b
+  expect_rejected(m, {"a bound named as a row", as_column, "farkas names row b"});
+  // Weakened: b >= -2 turns the limits' sum into -3 + 6 - 4 = -1: the same terms prove nothing.
+  auto loose = infeasible_pair();
+  loose.columns[1].lower = q(-2);
+  expect_rejected(loose, {"weaker model", c, "no contradiction: the weighted entries sum to 0 >= -1"});
+}
+
+// A crossed row and a crossed column: each is its own proof, lower minus upper > 0.
+TEST(CheckInfeasible, CrossedLimitsProveThemselves) {
+  auto m = ModelBuilder("crossed").column("x", 1, q(3), q(1)).row("r", {{"x", 1}}, q(5), q(2)).build();
+  for (auto kind : {plumb::certificate::EntryKind::row, plumb::certificate::EntryKind::column}) {
+    Certificate c;
+    c.model = plumb::certificate::identify(m);
+    c.status = plumb::certificate::Status::infeasible;
+    std::string name = kind == plumb::certificate::EntryKind::row ? "r" : "x";
+    c.farkas = {{{kind, name, plumb::certificate::Limit::lower}, q(1)},
+                {{kind, name, plumb::certificate::Limit::upper}, q(1)}};
+    auto verdict = verify(m, c);
+    EXPECT_TRUE(verdict.valid) << verdict.failure;
+    c.farkas[1].multiplier = q(2);
+    expect_rejected(m, {"unequal weights", c, "keeps the coefficient -1"});
+  }
+}
+
 // Invented: maximise 2u + v + 10 with u - v <= 1, v >= 2, u, v >= 0.  From x = (0, 2), moving along
 // r = (1, 1) keeps u - v fixed, raises v, and raises the objective by 3 per step, without end.
 plumb::model::Model unbounded_pair() {

@@ -105,6 +105,13 @@ TEST(ExactSession, RowEditsAndRestoresMatchFreshSolves) {
   edited.rows[2] = model.rows[2];
   expect_as_fresh(session, edited);
 
+  session.set_row_lower(1, q(31));  // flour: at least 31 and at most 30, crossed
+  edited.rows[1].lower = q(31);
+  CertifiedSolution crossed = expect_as_fresh(session, edited);
+  EXPECT_EQ(crossed.solution.stats.proof, "crossed limits");
+  session.set_row_lower(1, model.rows[1].lower);
+  edited.rows[1].lower = model.rows[1].lower;
+
   session.restore_row(0);
   session.restore_row(1);
   EXPECT_FALSE(session.edited());

@@ -230,4 +230,20 @@ TEST_F(SolveCommand, BadInputOrUsageExitsOne) {
   EXPECT_EQ(plumb("solve").exit_status, 1);
 }
 
+// A crossed row (tests/data/solve/crossed-row.plumb, invented) is an infeasible model with a
+// certificate: its two limits, each with multiplier 1, which plumb check accepts.
+TEST_F(SolveCommand, CrossedRowIsProvenInfeasibleByItsTwoLimits) {
+  const std::string data = PLUMB_TEST_DATA_DIR;
+  std::string certificate =
+      (std::filesystem::path(PLUMB_BUILD_DIR) / "crossed-row.certificate.json").string();
+  auto run = plumb::test::run(PLUMB_EXECUTABLE,
+                              {"solve", data + "/solve/crossed-row.plumb", "--certificate", certificate});
+  EXPECT_EQ(run.status, 10) << run.out << run.err;
+  EXPECT_NE(run.out.find("row window, lower side  x 1"), std::string::npos) << run.out;
+  EXPECT_NE(run.out.find("add up to 0 >= 5"), std::string::npos) << run.out;
+  auto check = plumb::test::run(
+      PLUMB_EXECUTABLE, {"check", data + "/solve/crossed-row.plumb", certificate, "--expect", "infeasible"});
+  EXPECT_EQ(check.status, 0) << check.out << check.err;
+}
+
 }  // namespace

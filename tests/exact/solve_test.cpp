@@ -351,6 +351,22 @@ TEST(ExactSolve, InfeasibleWithoutADualFeasibleBasis) {
   EXPECT_EQ(result.solution.stats.proof, "least infeasibility");
 }
 
+// A crossed row or column is proven at once by its own two limits, and the checker agrees.
+TEST(ExactSolve, CrossedLimitsAreProvenByThemselves) {
+  auto row = ModelBuilder("crossed-row").column("x", 1).row("r", Terms{{"x", 1}}, q(4), q(1)).build();
+  auto column =
+      ModelBuilder("crossed-column").column("x", 1, q(2), q(1)).row("r", Terms{{"x", 1}}, q(0), {}).build();
+  for (const model::Model* m : {&row, &column}) {
+    CertifiedSolution result = certified_solve(*m);
+    ASSERT_TRUE(result.certified()) << result.verdict.failure;
+    EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
+    EXPECT_EQ(result.solution.stats.proof, "crossed limits");
+    ASSERT_EQ(result.certificate.farkas.size(), 2u);
+    EXPECT_EQ(result.certificate.farkas[0].entry.name, m == &row ? "r" : "x");
+    EXPECT_TRUE(result.certificate.y.empty());
+  }
+}
+
 // An injected float failure sends the solve to the exact engine from the logical basis.
 TEST(ExactSolve, HybridFallsBackWhenTheFloatSearchFails) {
   auto model = chvatal_chapter2();

@@ -37,6 +37,29 @@ ModelIdentity identify(const model::Model& m);
 // whatever the file lists (a zero entry still has to name something in the model).
 using NamedValues = std::vector<std::pair<std::string, Rational>>;
 
+// One row side or one column bound of a model: a row's "a.x >= lower" or "a.x <= upper", a
+// column's "x_j >= lower" or "x_j <= upper".
+enum class EntryKind { row, column };
+enum class Limit { lower, upper };
+struct Entry {
+  EntryKind kind = EntryKind::row;
+  std::string name;
+  Limit limit = Limit::lower;
+  friend bool operator==(const Entry&, const Entry&) = default;
+};
+std::string to_string(EntryKind kind);
+std::string to_string(Limit limit);
+
+// A non-negative multiplier on one entry: Farkas multipliers in explicit form.  With each entry
+// written as g(x) >= value (a lower side or bound as it is, an upper one negated), the terms prove
+// that no x meets all their entries when the weighted sum of the g is identically zero and the
+// weighted sum of the values is positive (docs/certificates.md).  A crossed row or column: its
+// lower and its upper entry, each with multiplier 1.
+struct FarkasTerm {
+  Entry entry;
+  Rational multiplier;
+};
+
 struct Certificate {
   ModelIdentity model;
   Status status = Status::optimal;
@@ -44,12 +67,14 @@ struct Certificate {
   NamedValues x;                      // optimal, unbounded, feasible
   NamedValues y;                      // optimal: row multipliers; infeasible: Farkas multipliers
   NamedValues ray;                    // unbounded only
+  std::vector<FarkasTerm> farkas;     // infeasible, instead of y: multipliers on sides and bounds
   // Further keys (e.g. "basis"), written last in sorted order, their own members in the order held;
   // checkers ignore them.
   nlohmann::ordered_json extra = nlohmann::ordered_json::object();
 };
 
-// Which of "objective", "x", "y", "ray" a certificate of this status carries.
+// Which of "objective", "x", "y", "ray" a certificate of this status carries (an infeasible one
+// carries "farkas" in place of "y" when its multipliers are on single sides and bounds).
 struct Parts {
   bool objective = false, x = false, y = false, ray = false;
 };

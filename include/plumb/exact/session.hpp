@@ -34,8 +34,8 @@ class Session {
   Session& operator=(Session&&) noexcept;
 
   // Edits: a row side or column bound set to a value or to infinite (std::nullopt).  A lower side
-  // above the upper one is allowed; solving such a model is an error until crossed limits have a
-  // certificate.  Indices are the model's; out of range throws std::out_of_range.
+  // above the upper one is allowed: the solve then proves the model infeasible by those two
+  // limits (Solution::farkas).  Indices are the model's; out of range throws std::out_of_range.
   void set_row_lower(int row, model::Side value);
   void set_row_upper(int row, model::Side value);
   void set_column_lower(int column, model::Side value);

@@ -72,14 +72,17 @@ struct Solution {
   std::vector<Rational> x;    // optimal, unbounded: a feasible point (one per column)
   std::vector<Rational> y;    // optimal: row multipliers; infeasible: Farkas multipliers (one per row)
   std::vector<Rational> ray;  // unbounded: an improving ray (one per column)
+  // infeasible, when set: the proof on single sides and bounds (a crossed row or column), in
+  // place of y (which is then all zero)
+  std::vector<certificate::FarkasTerm> farkas;
   Rational objective = 0;     // optimal: the model's objective at x, its sense and constant
   simplex::Basis basis;       // the final basis, for warm starts
   SolveStats stats;
   run::StopReason stop_reason = run::StopReason::none;
 };
 
-// Solves the LP relaxation exactly (integer markers are ignored).  Throws std::invalid_argument
-// when a row or column has its lower bound above its upper bound.
+// Solves the LP relaxation exactly (integer markers are ignored).  A row or column whose lower
+// limit is above its upper one makes the model infeasible at once, proven by those two limits.
 Solution solve(const model::Model& model, const SolveOptions& options = {});
 
 // The certificate proving a solution's outcome (not for Outcome::stopped): model identity from
