@@ -259,7 +259,8 @@ Verdict verify(const model::Model& m, const certificate::Certificate& c) {
       case Status::infeasible: return verify_infeasible(m, c);
       case Status::unbounded: return verify_unbounded(m, c, objective);
       case Status::feasible: return verify_feasible(m, c, objective);
-      case Status::infeasible_subsystem: break;
+      case Status::infeasible_subsystem:
+        break;
     }
     return {false, "", "status: not one the checker knows"};
   } catch (const Failure& failure) {
