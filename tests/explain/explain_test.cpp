@@ -148,6 +148,13 @@ TEST(Explain, TwoOrdersAndTheSmallerSubsystemIsKept) {
   ASSERT_EQ(e.orders.size(), 2u);
   EXPECT_EQ(e.orders[0].members, 2u);
   EXPECT_EQ(e.orders[1].members, 3u);
+  // The sub-solves, worked by hand from docs/explaining.md.  Bounds first: dropping u <= 1 leaves
+  // the x conflict, whose certificate's support replaces the candidates; the doubled block
+  // {x_floor, x_cap} turns feasible, then each alone proves needed: 4.  Rows first: dropping
+  // x_floor leaves the u, v conflict as the support; the block {uv_floor, u <= 1} turns feasible,
+  // then uv_floor, u <= 1 and v <= 1 each alone: 5.
+  EXPECT_EQ(e.orders[0].sub_solves, 4);
+  EXPECT_EQ(e.orders[1].sub_solves, 5);
 }
 
 // Worked by hand: 5 <= x + y <= 8 with x >= 6 and y >= 3 (rows): x + y >= 9 > 8, the range's upper
@@ -198,6 +205,20 @@ TEST(Explain, CrossedBoundsAreTheirOwnSubsystem) {
   ASSERT_EQ(e.outcome, Outcome::infeasible_subsystem);
   expect_proven_iis(m, e);
   std::set<std::pair<std::string, Limit>> expected{{"x", Limit::lower}, {"x", Limit::upper}};
+  EXPECT_EQ(members_of(e), expected);
+}
+
+// A crossed row, 5 <= x <= 3: its two sides are the subsystem, proven by multipliers 1 and 1.
+TEST(Explain, CrossedRowIsItsOwnSubsystem) {
+  model::Model m = ModelBuilder("crossed-row")
+                       .column("x", 1)
+                       .row("crossed", Terms{{"x", 1}}, q(5), q(3))
+                       .row("fine", Terms{{"x", 1}}, {}, q(10))
+                       .build();
+  Explanation e = explain(m);
+  ASSERT_EQ(e.outcome, Outcome::infeasible_subsystem);
+  expect_proven_iis(m, e);
+  std::set<std::pair<std::string, Limit>> expected{{"crossed", Limit::lower}, {"crossed", Limit::upper}};
   EXPECT_EQ(members_of(e), expected);
 }
 
