@@ -310,6 +310,19 @@ TEST(Explain, FeasibleModelGetsAFeasibleCertificate) {
   EXPECT_TRUE(e.verdict.valid) << e.verdict.failure;
 }
 
+TEST(Explain, ProgressReportsEverySubSolveOfTheFilter) {
+  model::Model m = equation_model();
+  std::vector<Progress> seen;
+  Options options;
+  options.progress = [&seen](const Progress& p) { seen.push_back(p); };
+  Explanation e = explain(m, options);
+  ASSERT_FALSE(seen.empty());
+  EXPECT_EQ(seen.size(), static_cast<std::size_t>(e.sub_solves - 1));  // all but the first solve
+  EXPECT_EQ(seen.front().phase, "deletion, bounds first");
+  EXPECT_EQ(seen.back().candidates, 0);
+  EXPECT_EQ(seen.back().sub_solves, e.sub_solves);
+}
+
 TEST(Explain, AnExhaustedBudgetStops) {
   model::Model m = equation_model();
   run::Budget budget(1e-9, std::nullopt);
