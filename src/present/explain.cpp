@@ -103,6 +103,8 @@ void write_explain_text(const model::Model& model, const explain::Explanation& r
   out << "model      " << model.source.path << "\n";
   out << "           sha256 " << model.source.sha256.substr(0, 16) << "...  " << model.row_count()
       << " rows, " << model.column_count() << " columns, " << model.matrix.nonzeros() << " non-zeros\n";
+  if (int integers = detail::integer_columns(model))
+    out << "note       " << integers << " columns are marked integer: plumb explained the LP relaxation\n";
   std::size_t rows = 0;
   for (const auto& m : result.members) rows += is_row(m);
   switch (result.outcome) {
@@ -158,11 +160,9 @@ void write_explain_text(const model::Model& model, const explain::Explanation& r
 nlohmann::ordered_json explain_json(const model::Model& model, const explain::Explanation& result,
                                     const RunFigures& figures) {
   nlohmann::ordered_json out;
-  out["model"] = {{"file", model.source.path},
-                  {"sha256", model.source.sha256},
-                  {"rows", model.row_count()},
-                  {"columns", model.column_count()},
-                  {"nonzeros", model.matrix.nonzeros()}};
+  out["model"] = {{"file", model.source.path},           {"sha256", model.source.sha256},
+                  {"rows", model.row_count()},           {"columns", model.column_count()},
+                  {"nonzeros", model.matrix.nonzeros()}, {"integer_columns", detail::integer_columns(model)}};
   out["status"] = status_text(result.outcome);
   if (result.outcome == explain::Outcome::stopped) {
     out["stopped_because"] = run::describe(result.stop_reason);
