@@ -51,6 +51,12 @@ TEST(ExplainRender, LabelsGiveStatementsUnitsAndHardness) {
       << text;
 }
 
+TEST(ExplainRender, IntegerMarkersAreNotedAsTheLpRelaxation) {
+  model::Model m = small_conflict();
+  m.columns[0].integer = true;
+  EXPECT_TRUE(has(text_of(m), "note       1 columns are marked integer: plumb explained the LP relaxation\n"));
+}
+
 TEST(ExplainRender, HardAloneIsTheModelInconsistent) {
   model::Model m = small_conflict();
   m.rows[0].label.hard = true;
