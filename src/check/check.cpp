@@ -4,6 +4,9 @@
 
 #include "wording.hpp"
 
+#include <algorithm>
+#include <tuple>
+
 namespace plumb::check {
 namespace {
 
@@ -221,53 +224,69 @@ Verdict verify_infeasible(const Model& m, const Certificate& c) {
                     amount(rows_force) + ", while the bounds keep y.Ax <= " + amount(bounds_allow) + ")", ""};
 }
 
-// The entry's side or bound, which must be finite: a multiplier on an infinite limit proves nothing.
-const Rational& entry_limit(const Model& m, const certificate::Entry& e, int index) {
-  const Side& side =
-      e.kind == certificate::EntryKind::row
-          ? (e.limit == certificate::Limit::lower ? m.rows[index].lower : m.rows[index].upper)
-          : (e.limit == certificate::Limit::lower ? m.columns[index].lower : m.columns[index].upper);
-  if (!side)
-    throw Failure{"farkas: the " + certificate::to_string(e.limit) + " " +
-                  (e.kind == certificate::EntryKind::row ? "side of " : "bound of ") +
-                  (e.kind == certificate::EntryKind::row ? row_text(m, index)() : column_text(m, index)()) +
-                  " is infinite, so a multiplier on it proves nothing"};
-  return *side;
+// One entry of a certificate resolved against the model: which row or column, its finite limit,
+// and a slot unique to the entry (for repeats).
+struct Resolved {
+  bool row = true;
+  int index = 0;
+  Rational limit;
+  std::size_t slot = 0;
+};
+
+std::string entry_text(const Model& m, const Resolved& r, certificate::Limit limit) {
+  return "the " + certificate::to_string(limit) + (r.row ? " side of " : " bound of ") +
+         (r.row ? row_text(m, r.index)() : column_text(m, r.index)());
+}
+
+// The entry's row or column must exist and its side or bound be finite: an infinite limit neither
+// proves nor constrains anything.
+Resolved resolve(const Model& m, const certificate::Entry& e, const std::string& part) {
+  bool row = e.kind == certificate::EntryKind::row;
+  auto index = row ? m.find_row(e.name) : m.find_column(e.name);
+  if (!index)
+    throw Failure{part + " names " + (row ? "row " : "column ") + detail::shown_name(e.name) +
+                  ", which the model does not have"};
+  bool lower = e.limit == certificate::Limit::lower;
+  const Side& side = row ? (lower ? m.rows[*index].lower : m.rows[*index].upper)
+                         : (lower ? m.columns[*index].lower : m.columns[*index].upper);
+  Resolved r{row, *index, 0, 2 * static_cast<std::size_t>(row ? *index : m.row_count() + *index) + !lower};
+  if (!side) throw Failure{part + ": " + entry_text(m, r, e.limit) + " is infinite, so " +
+                           (part == "farkas" ? "a multiplier on it proves nothing" : "it constrains nothing")};
+  r.limit = *side;
+  return r;
 }
 
 // Farkas in explicit form: each entry written as g(x) >= value (an upper one negated), multipliers
 // >= 0; if the weighted g sum to zero in every column and the weighted values to more than zero,
-// then every x meeting the entries would give 0 >= a positive number.
-Verdict verify_explicit_farkas(const Model& m, const Certificate& c) {
+// then every x meeting the entries would give 0 >= a positive number.  `allowed`, when given, is
+// the set of slots the terms may use (a subsystem's own entries).
+Rational require_farkas(const Model& m, const std::vector<certificate::FarkasTerm>& terms,
+                        const std::vector<bool>* allowed) {
   std::vector<Rational> combined(static_cast<std::size_t>(m.column_count()));
   Rational force = 0;
   std::vector<bool> seen(static_cast<std::size_t>(2 * (m.row_count() + m.column_count())), false);
-  for (const certificate::FarkasTerm& t : c.farkas) {
+  for (const certificate::FarkasTerm& t : terms) {
     const certificate::Entry& e = t.entry;
-    bool row = e.kind == certificate::EntryKind::row;
-    auto index = row ? m.find_row(e.name) : m.find_column(e.name);
-    if (!index)
-      throw Failure{std::string("farkas names ") + (row ? "row " : "column ") + detail::shown_name(e.name) +
-                    ", which the model does not have"};
-    std::size_t slot = 2 * static_cast<std::size_t>(row ? *index : m.row_count() + *index) +
-                       (e.limit == certificate::Limit::upper);
-    if (seen[slot])
+    Resolved r = resolve(m, e, "farkas");
+    if (seen[r.slot])
       throw Failure{"farkas lists the " + certificate::to_string(e.limit) + " limit of " +
                     detail::shown_name(e.name) + " twice"};
-    seen[slot] = true;
+    seen[r.slot] = true;
+    if (allowed && !(*allowed)[r.slot])
+      throw Failure{"farkas uses " + entry_text(m, r, e.limit) +
+                    ", which is neither a member nor a hard entry of the subsystem"};
     if (t.multiplier < 0)
       throw Failure{"farkas: the multiplier on the " + certificate::to_string(e.limit) + " limit of " +
                     detail::shown_name(e.name) + " is " + amount(t.multiplier) +
                     ", and multipliers must be at least 0"};
-    const Rational& limit = entry_limit(m, e, *index);
     Rational weight = e.limit == certificate::Limit::lower ? t.multiplier : Rational(-t.multiplier);
-    force += weight * limit;
-    if (!row) {
-      combined[static_cast<std::size_t>(*index)] += weight;
+    force += weight * r.limit;
+    if (!r.row) {
+      combined[static_cast<std::size_t>(r.index)] += weight;
       continue;
     }
-    auto columns = m.matrix.row_columns(*index);
-    auto positions = m.matrix.row_positions(*index);
+    auto columns = m.matrix.row_columns(r.index);
+    auto positions = m.matrix.row_positions(r.index);
     for (std::size_t k = 0; k < columns.size(); ++k)
       combined[static_cast<std::size_t>(columns[k])] += weight * m.matrix.value(positions[k]);
   }
@@ -279,10 +298,96 @@ Verdict verify_explicit_farkas(const Model& m, const Certificate& c) {
   if (force <= 0)
     throw Failure{"no contradiction: the weighted entries sum to 0 >= " + amount(force) +
                   ", which holds; infeasibility needs the right-hand side above 0"};
+  return force;
+}
+
+Verdict verify_explicit_farkas(const Model& m, const Certificate& c) {
+  Rational force = require_farkas(m, c.farkas, nullptr);
   return {true,
           "infeasible: no x meets every row and bound (Farkas: " + std::to_string(c.farkas.size()) +
               " weighted sides and bounds add up to 0 >= " + amount(force) + ")",
           ""};
+}
+
+// What the labels say of an entry (docs/labels.md): a row's label, a bound's own label, falling
+// back to its column's where the bound's is silent.
+struct EntryLabel {
+  bool hard = false;
+  std::string group;
+};
+EntryLabel label_of(const Model& m, const Resolved& r, certificate::Limit limit) {
+  if (r.row) return {m.rows[r.index].label.hard.value_or(false), m.rows[r.index].label.group};
+  const model::Column& column = m.columns[r.index];
+  const model::Label& own = limit == certificate::Limit::lower ? column.lower_label : column.upper_label;
+  return {own.hard ? *own.hard : column.label.hard.value_or(false),
+          own.group.empty() ? column.label.group : own.group};
+}
+
+// An irreducible infeasible subsystem: the Farkas terms prove its members and hard entries
+// infeasible using only them; each witness drops one member (or one group's members) and meets
+// every other entry of the subsystem exactly, so no member can be left out.
+Verdict verify_subsystem(const Model& m, const Certificate& c) {
+  std::vector<bool> in_subsystem(static_cast<std::size_t>(2 * (m.row_count() + m.column_count())), false);
+  std::vector<Resolved> members, hard;
+  for (auto [list, out, part] : {std::tuple{&c.members, &members, "members"}, std::tuple{&c.hard, &hard, "hard"}})
+    for (const certificate::Entry& e : *list) {
+      Resolved r = resolve(m, e, part);
+      if (in_subsystem[r.slot])
+        throw Failure{std::string(part) + ": " + entry_text(m, r, e.limit) + " is listed twice in the subsystem"};
+      in_subsystem[r.slot] = true;
+      if (out == &members && label_of(m, r, e.limit).hard)
+        throw Failure{"members: " + entry_text(m, r, e.limit) +
+                      " is hard by its label, so it may not be offered for relaxing"};
+      out->push_back(r);
+    }
+  Rational force = require_farkas(m, c.farkas, &in_subsystem);
+  std::vector<int> dropped_by(members.size(), -1);
+  for (std::size_t w = 0; w < c.witnesses.size(); ++w) {
+    const certificate::Witness& witness = c.witnesses[w];
+    std::string at = "witness " + std::to_string(w);
+    if (witness.drop.empty()) throw Failure{at + " drops no member"};
+    for (std::size_t k : witness.drop) {
+      if (k >= members.size())
+        throw Failure{at + " drops member " + std::to_string(k) + ", and there are " +
+                      std::to_string(members.size())};
+      if (dropped_by[k] >= 0)
+        throw Failure{at + " drops member " + std::to_string(k) + ", which witness " + std::to_string(dropped_by[k]) +
+                      " drops already"};
+      dropped_by[k] = static_cast<int>(w);
+    }
+    std::string group = label_of(m, members[witness.drop[0]], c.members[witness.drop[0]].limit).group;
+    for (std::size_t k : witness.drop)
+      if (witness.drop.size() > 1 && (group.empty() || label_of(m, members[k], c.members[k].limit).group != group))
+        throw Failure{at + " drops several members that do not share one group"};
+    std::vector<Rational> x = dense(m, witness.x, Kind::column, ("witnesses[" + std::to_string(w) + "].x").c_str());
+    auto require_met = [&](const Resolved& r, const certificate::Entry& e) {
+      Rational value = r.row ? Rational(0) : x[static_cast<std::size_t>(r.index)];
+      if (r.row) {
+        auto columns = m.matrix.row_columns(r.index);
+        auto positions = m.matrix.row_positions(r.index);
+        for (std::size_t k = 0; k < columns.size(); ++k)
+          value += m.matrix.value(positions[k]) * x[static_cast<std::size_t>(columns[k])];
+      }
+      bool met = e.limit == certificate::Limit::lower ? value >= r.limit : value <= r.limit;
+      if (!met)
+        throw Failure{at + " breaks " + entry_text(m, r, e.limit) + ": " + (r.row ? "a.x" : "x") + " = " +
+                      amount(value) + " against " + amount(r.limit) + ", so it does not show that member needed"};
+    };
+    for (std::size_t k = 0; k < members.size(); ++k)
+      if (std::find(witness.drop.begin(), witness.drop.end(), k) == witness.drop.end())
+        require_met(members[k], c.members[k]);
+    for (std::size_t k = 0; k < hard.size(); ++k) require_met(hard[k], c.hard[k]);
+  }
+  for (std::size_t k = 0; k < members.size(); ++k)
+    if (dropped_by[k] < 0)
+      throw Failure{"members: " + entry_text(m, members[k], c.members[k].limit) +
+                    " has no witness, so nothing shows it is needed"};
+  std::string what = members.empty() ? "the hard entries alone conflict: " + std::to_string(hard.size()) +
+                                           " of them admit no x"
+                                     : std::to_string(members.size()) + " members and " +
+                                           std::to_string(hard.size()) + " hard entries admit no x, and " +
+                                           "dropping any one member (or group) leaves them satisfiable";
+  return {true, "infeasible subsystem: " + what + " (Farkas: they add up to 0 >= " + amount(force) + ")", ""};
 }
 
 Verdict verify_unbounded(const Model& m, const Certificate& c, const detail::Objective& objective) {
@@ -324,6 +429,7 @@ Verdict verify(const model::Model& m, const certificate::Certificate& c) {
         return c.farkas.empty() ? verify_infeasible(m, c) : verify_explicit_farkas(m, c);
       case Status::unbounded: return verify_unbounded(m, c, objective);
       case Status::feasible: return verify_feasible(m, c, objective);
+      case Status::infeasible_subsystem: return verify_subsystem(m, c);
     }
     return {false, "", "status: not one the checker knows"};
   } catch (const Failure& failure) {

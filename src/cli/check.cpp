@@ -41,7 +41,7 @@ void add_check(CLI::App& app, Action& action) {
   command->add_flag("--json", options->json, "Print the verdict as JSON");
   command->add_option("--expect", options->expect,
                       "Demand this status: a valid certificate of another status exits 5")
-      ->check(CLI::IsMember({"optimal", "infeasible", "unbounded"}));
+      ->check(CLI::IsMember({"optimal", "infeasible", "unbounded", "feasible", "infeasible_subsystem"}));
   command->callback([&action, options] { action = [options] { return run_check(*options); }; });
 }
 

@@ -6,7 +6,10 @@
 
 #include <CLI/CLI.hpp>
 
+#include <chrono>
+#include <cstdio>
 #include <functional>
+#include <memory>
 #include <string>
 
 namespace plumb::cli {
@@ -41,6 +44,25 @@ model::Model load_model(const ModelOptions& options);
 // the readers and every solve loop poll, so the command ends with exit 3 wherever it is.
 void stop_on_interrupt();
 
+// A live progress line on stderr, redrawn in place at most four times a second and whenever the
+// phase changes; commands install it only when stderr is a terminal, so logs and pipes see nothing
+// but warnings.  `render` draws one snapshot (a present:: progress line).
+template <class Snapshot>
+std::function<void(const Snapshot&)> progress_printer(std::string (*render)(const Snapshot&)) {
+  struct Shown {
+    std::chrono::steady_clock::time_point at = std::chrono::steady_clock::now();
+    std::string phase;
+  };
+  auto last = std::make_shared<Shown>();
+  return [last, render](const Snapshot& p) {
+    auto now = std::chrono::steady_clock::now();
+    if (p.phase == last->phase && now - last->at < std::chrono::milliseconds(250)) return;
+    last->at = now;
+    last->phase = p.phase;
+    std::fprintf(stderr, "\r\033[K%s", render(p).c_str());
+  };
+}
+
 // The command line as typed, each word shell-quoted where it needs it (set by main).
 const std::string& command_line();
 
@@ -51,5 +73,6 @@ void add_solve(CLI::App& app, Action& action);
 void add_check(CLI::App& app, Action& action);
 void add_audit(CLI::App& app, Action& action);
 void add_report(CLI::App& app, Action& action);
+void add_explain(CLI::App& app, Action& action);
 
 }  // namespace plumb::cli

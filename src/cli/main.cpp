@@ -64,6 +64,7 @@ int main(int argc, char** argv) {
   add_check(app, action);
   add_audit(app, action);
   add_report(app, action);
+  add_explain(app, action);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

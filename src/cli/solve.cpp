@@ -45,23 +45,6 @@ simplex::Basis start_basis(const std::string& path, const model::Model& model) {
   return std::move(file.basis);
 }
 
-// A live progress line on stderr, redrawn in place at most four times a second and whenever the
-// phase changes; only on a terminal, so logs and pipes see nothing but warnings.
-std::function<void(const exact::Progress&)> progress_printer() {
-  struct Shown {
-    std::chrono::steady_clock::time_point at = std::chrono::steady_clock::now();
-    std::string phase;
-  };
-  auto last = std::make_shared<Shown>();
-  return [last](const exact::Progress& p) {
-    auto now = std::chrono::steady_clock::now();
-    if (p.phase == last->phase && now - last->at < std::chrono::milliseconds(250)) return;
-    last->at = now;
-    last->phase = p.phase;
-    std::fprintf(stderr, "\r\033[K%s", present::progress_line(p).c_str());
-  };
-}
-
 int run_solve(const SolveCommandOptions& options) {
   stop_on_interrupt();
   model::Model model = load_model(options.model);
@@ -75,7 +58,7 @@ int run_solve(const SolveCommandOptions& options) {
     solve.warm_start = &warm_start;
   }
   bool live_progress = !options.quiet && isatty(STDERR_FILENO);
-  if (live_progress) solve.progress = progress_printer();
+  if (live_progress) solve.progress = progress_printer<exact::Progress>(present::progress_line);
   auto clock = std::chrono::steady_clock::now();
   exact::CertifiedSolution result = exact::certified_solve(model, solve);
   present::RunFigures figures{std::chrono::duration<double>(std::chrono::steady_clock::now() - clock).count(),

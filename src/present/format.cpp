@@ -122,4 +122,34 @@ const std::string& violation_name(const model::Model& model, const audit::Violat
                                                : model.columns[static_cast<std::size_t>(v.index)].name;
 }
 
+void put_number(nlohmann::ordered_json& target, const Rational& value) {
+  numeric::Decimal decimal = numeric::to_decimal(value);
+  target["fraction"] = numeric::to_fraction(value);
+  target["decimal"] = decimal.text;
+  target["rounded"] = decimal.rounded;
+}
+
+std::string coefficient_text(const Rational& value) {
+  numeric::Decimal decimal = numeric::to_decimal(value, 15);
+  return decimal.rounded ? numeric::to_display(value) : decimal.text;
+}
+
+std::string expression_text(const model::Model& model, int row, std::size_t limit) {
+  auto columns = model.matrix.row_columns(row);
+  auto positions = model.matrix.row_positions(row);
+  std::string text;
+  for (std::size_t k = 0; k < columns.size(); ++k) {
+    if (k == limit) {
+      text += " + ... (" + std::to_string(columns.size() - limit) + " more terms)";
+      break;
+    }
+    const Rational& value = model.matrix.value(positions[k]);
+    Rational magnitude = abs(value);
+    text += value < 0 ? (k == 0 ? "-" : " - ") : (k == 0 ? "" : " + ");
+    if (magnitude != 1) text += coefficient_text(magnitude) + " ";
+    text += model.columns[static_cast<std::size_t>(columns[k])].name;
+  }
+  return text.empty() ? "0" : text;
+}
+
 }  // namespace plumb::present::detail

@@ -47,6 +47,14 @@ std::string constant_rule_text(const model::Source& source);
 // How many columns carry an integer marker (plumb solves and analyses the LP relaxation).
 int integer_columns(const model::Model& model);
 
+// A coefficient inside an algebraic form: an exact decimal when it has a short one ("0.1", not
+// "1/10"), else the value's short text form.
+std::string coefficient_text(const Rational& value);
+
+// Row i's left-hand side in the model's names, "3 butane + 0.1 naphtha - ethanol", terms in column
+// order; at most `limit` terms, then "+ ... (N more terms)".
+std::string expression_text(const model::Model& model, int row, std::size_t limit);
+
 // A side or bound: the exact value, or "-inf"/"+inf" when it is absent.
 std::string side_text(const model::Side& side, bool is_lower);
 
@@ -67,5 +75,7 @@ const model::Label& violation_label(const model::Model& model, const audit::Viol
 
 nlohmann::json exact_json(const Rational& value);
 nlohmann::json side_json(const model::Side& side);
+// Sets target's "fraction", "decimal" (rounded to 12 digits when it must be) and "rounded".
+void put_number(nlohmann::ordered_json& target, const Rational& value);
 
 }  // namespace plumb::present::detail

@@ -13,20 +13,17 @@
 namespace plumb::present {
 namespace {
 
+using detail::coefficient_text;
+using detail::expression_text;
+
 using report::Block;
 using report::Table;
 
-// ----- numbers: every number in the report goes through these two, built on the one text form -----
+// ----- numbers: every number in the report goes through value_text or coefficient_text (format.hpp),
+// both built on the one text form -----
 
 // A value in prose and tables: exact when short, else a rounded decimal marked "~".
 std::string value_text(const Rational& value) { return numeric::exact_and_decimal(value); }
-
-// A coefficient inside an algebraic form: an exact decimal when it has a short one ("0.1", not
-// "1/10"), else the value's short text form.
-std::string coefficient_text(const Rational& value) {
-  numeric::Decimal decimal = numeric::to_decimal(value, 15);
-  return decimal.rounded ? numeric::to_display(value) : decimal.text;
-}
 
 // ----- the model in words -----
 
@@ -37,25 +34,6 @@ constexpr std::size_t values_listed = 60;        // plan values listed before th
 constexpr std::size_t conflict_drawn_rows = 10;  // the conflict graph is drawn up to this size
 constexpr std::size_t conflict_drawn_columns = 14;
 const Rational near_limit_share{1, 10};          // slack within a tenth of the limit counts as near
-
-// "3 butane + 0.1 naphtha - ethanol", terms in column order; at most `limit` terms, then "+ ... (N more)".
-std::string expression_text(const model::Model& model, int row, std::size_t limit) {
-  auto columns = model.matrix.row_columns(row);
-  auto positions = model.matrix.row_positions(row);
-  std::string text;
-  for (std::size_t k = 0; k < columns.size(); ++k) {
-    if (k == limit) {
-      text += " + ... (" + std::to_string(columns.size() - limit) + " more terms)";
-      break;
-    }
-    const Rational& value = model.matrix.value(positions[k]);
-    Rational magnitude = abs(value);
-    text += value < 0 ? (k == 0 ? "-" : " - ") : (k == 0 ? "" : " + ");
-    if (magnitude != 1) text += coefficient_text(magnitude) + " ";
-    text += model.columns[static_cast<std::size_t>(columns[k])].name;
-  }
-  return text.empty() ? "0" : text;
-}
 
 std::string relation_text(const std::string& expression, const model::Side& lower, const model::Side& upper) {
   if (lower && upper && *lower == *upper) return expression + " = " + coefficient_text(*upper);

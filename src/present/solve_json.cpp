@@ -7,15 +7,8 @@
 namespace plumb::present {
 namespace {
 
+using detail::put_number;
 using numeric::Rational;
-
-// Adds an exact value as its fraction and its (possibly rounded) decimal.
-void put_number(nlohmann::ordered_json& target, const Rational& value) {
-  numeric::Decimal decimal = numeric::to_decimal(value);
-  target["fraction"] = numeric::to_fraction(value);
-  target["decimal"] = decimal.text;
-  target["rounded"] = decimal.rounded;
-}
 
 nlohmann::ordered_json named(const certificate::NamedValues& values) {
   nlohmann::ordered_json list = nlohmann::ordered_json::array();

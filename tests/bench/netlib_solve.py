@@ -135,13 +135,21 @@ def run_measured(command, stdout_path, stderr_path, kill_after):
     return process.returncode, seconds, usage.ru_maxrss / 1024  # ru_maxrss is in KiB on Linux
 
 
-def solve_instance(plumb, model, scratch, time_limit):
+def run_command(plumb, command_name, model, scratch, time_limit):
+    """Runs `plumb COMMAND MODEL --json --quiet --time-limit S --certificate FILE`, measured; returns
+    (instance name, certificate path, stdout path, stderr path, exit status, wall seconds, peak MiB)."""
     name = model.name[: -len(".mps.gz")]
     certificate = scratch / f"{name}.certificate.json"
     stdout_path, stderr_path = scratch / f"{name}.out.json", scratch / f"{name}.err"
-    command = [plumb, "solve", str(model), "--json", "--quiet", "--time-limit", f"{time_limit:g}",
+    command = [plumb, command_name, str(model), "--json", "--quiet", "--time-limit", f"{time_limit:g}",
                "--certificate", str(certificate)]
     code, seconds, peak = run_measured(command, stdout_path, stderr_path, time_limit + KILL_GRACE_SECONDS)
+    return name, certificate, stdout_path, stderr_path, code, seconds, peak
+
+
+def solve_instance(plumb, model, scratch, time_limit):
+    name, certificate, stdout_path, stderr_path, code, seconds, peak = run_command(
+        plumb, "solve", model, scratch, time_limit)
     result = {"instance": name, "exit": code, "total_seconds": seconds, "peak_mib": peak,
               "status": EXIT_WORDS.get(code, "killed" if code < 0 else f"exit {code}"), "certified": False}
     if code in (0, 10, 11):

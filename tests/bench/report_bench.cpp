@@ -24,7 +24,10 @@ std::size_t report_of(const plumb::model::Model& model, plumb::present::ReportFo
   input.model = &model;
   input.health = &health;
   input.result = &result;
-  input.run = {"plumb report (bench)", "2026-01-01T00:00:00Z", PLUMB_VERSION, {model.source.path, model.source.sha256, 0}, {}};
+  input.run.command = "plumb report (bench)";
+  input.run.utc_time = "2026-01-01T00:00:00Z";
+  input.run.version = PLUMB_VERSION;
+  input.run.model_file = {model.source.path, model.source.sha256, 0};
   input.certificate.text = plumb::certificate::to_json_text(result.certificate);
   input.certificate.sha256 = plumb::model::sha256_hex(input.certificate.text);
   input.conflict = plumb::present::conflict_from_farkas(model, result);

@@ -9,6 +9,9 @@
 namespace {
 
 using plumb::certificate::Certificate;
+using plumb::certificate::Entry;
+using plumb::certificate::EntryKind;
+using plumb::certificate::Limit;
 using plumb::certificate::parse_certificate;
 using plumb::certificate::ReadLimits;
 using plumb::certificate::Status;
@@ -64,7 +67,8 @@ void expect_refused(const std::string& text, const std::string& phrase, const Re
 // A valid optimal certificate with one rational replaced.
 std::string with_value(const std::string& value) {
   return R"({"plumb_certificate": 1, "model": {"file": "m", "sha256": "", "rows": 1, "columns": 1},
- "status": "optimal", "objective": "0", "x": {"c": )" + value + R"(}, "y": {}})";
+ "status": "optimal", "objective": "0", "x": {"c": )" +
+         value + R"(}, "y": {}})";
 }
 
 TEST(CertificateWriter, DeterministicBytesInAFixedLayout) {
@@ -141,7 +145,8 @@ TEST(CertificateReader, QuotesALongStringWithoutCuttingACharacter) {
   // Found by the certificate fuzzer (tests/data/fuzz-regressions/certificate/): the excerpt of a long
   // string was cut at byte 24, inside a three-byte character, and quoting it threw.
   std::string text = std::string(23, 'a') + "\xe4\x84\x81" + std::string(20, 'b');  // U+4101 at bytes 23-25
-  expect_refused(with_value("\"" + text + "\""), "found the string \"" + std::string(23, 'a') + "\"... (46 bytes)");
+  expect_refused(with_value("\"" + text + "\""),
+                 "found the string \"" + std::string(23, 'a') + "\"... (46 bytes)");
 }
 
 TEST(CertificateReader, RefusesNumbersWhereRationalsBelong) {
@@ -162,12 +167,16 @@ TEST(CertificateReader, RefusesAMillionDigitNumeratorBeforeArithmetic) {
 }
 
 TEST(CertificateReader, RefusesDuplicateKeysWithTheirLine) {
-  std::string text = "{\"plumb_certificate\": 1,\n \"model\": {\"file\": \"m\", \"sha256\": \"\", \"rows\": 1, \"columns\": 1},\n"
-                     " \"status\": \"feasible\",\n \"x\": {\"c\": \"1\",\n   \"c\": \"2\"}}";
+  std::string text =
+      "{\"plumb_certificate\": 1,\n \"model\": {\"file\": \"m\", \"sha256\": \"\", \"rows\": 1, \"columns\": "
+      "1},\n"
+      " \"status\": \"feasible\",\n \"x\": {\"c\": \"1\",\n   \"c\": \"2\"}}";
   expect_refused(text, "c.json:5:4: found the key \"c\" a second time in one object");
-  expect_refused(R"({"plumb_certificate": 1, "plumb_certificate": 1})", "c.json:1:26: found the key \"plumb_certificate\" a second time");
+  expect_refused(R"({"plumb_certificate": 1, "plumb_certificate": 1})",
+                 "c.json:1:26: found the key \"plumb_certificate\" a second time");
   expect_refused(R"({"plumb_certificate": 1, "status": "feasible", "status": "optimal"})", "a second time");
-  expect_refused(with_value(R"("1", "\u0063": "2")"), "found the key \"c\" a second time");  // same name once decoded
+  expect_refused(with_value(R"("1", "\u0063": "2")"),
+                 "found the key \"c\" a second time");  // same name once decoded
 }
 
 TEST(CertificateReader, RefusesDeepNestingWithoutRecursion) {
@@ -176,13 +185,14 @@ TEST(CertificateReader, RefusesDeepNestingWithoutRecursion) {
   std::string deep_objects;
   for (int i = 0; i < 100000; ++i) deep_objects += "{\"a\":";
   expect_refused(deep_objects, "c.json:1:81: found objects and arrays nested deeper than 16 levels");
-  std::string extra_nested = R"({"plumb_certificate": 1, "status": "feasible", "basis": )" + std::string(20, '[') +
-                             std::string(20, ']') + "}";
+  std::string extra_nested = R"({"plumb_certificate": 1, "status": "feasible", "basis": )" +
+                             std::string(20, '[') + std::string(20, ']') + "}";
   expect_refused(extra_nested, "nested deeper than 16 levels");
 }
 
 TEST(CertificateReader, RefusesInvalidJsonWithLineAndColumn) {
-  expect_refused("{\n  \"plumb_certificate\": 1,\n  \"status\" \"optimal\"\n}", "c.json:3:20: found invalid JSON (syntax error while parsing object separator");
+  expect_refused("{\n  \"plumb_certificate\": 1,\n  \"status\" \"optimal\"\n}",
+                 "c.json:3:20: found invalid JSON (syntax error while parsing object separator");
   expect_refused("", "c.json:1:1: found invalid JSON");
   expect_refused("{\"plumb_certificate\": 1} trailing", "found invalid JSON");
   expect_refused("{\"plumb_certificate\": 1, \"status\": \"\xff\"}", "found invalid JSON");
@@ -192,15 +202,18 @@ TEST(CertificateReader, RefusesInvalidJsonWithLineAndColumn) {
 TEST(CertificateReader, RefusesOversizedInput) {
   ReadLimits small;
   small.max_bytes = 100;
-  expect_refused(std::string(101, ' '), "found 101 bytes, expected a certificate of at most 100 bytes", small);
+  expect_refused(std::string(101, ' '), "found 101 bytes, expected a certificate of at most 100 bytes",
+                 small);
 }
 
 TEST(CertificateReader, RefusesOtherVersionsAndUnknownStatus) {
   const std::string model = R"("model": {"file": "m", "sha256": "", "rows": 0, "columns": 0})";
   expect_refused(R"({"plumb_certificate": 2, "status": "feasible", "x": {}, )" + model + "}",
                  "c.json:1:23: found the number 2, expected 1, the only certificate version");
-  expect_refused(R"({"plumb_certificate": "1", "status": "feasible", "x": {}, )" + model + "}", "found the string \"1\"");
-  expect_refused(R"({"plumb_certificate": 1.0, "status": "feasible", "x": {}, )" + model + "}", "found the number 1.0");
+  expect_refused(R"({"plumb_certificate": "1", "status": "feasible", "x": {}, )" + model + "}",
+                 "found the string \"1\"");
+  expect_refused(R"({"plumb_certificate": 1.0, "status": "feasible", "x": {}, )" + model + "}",
+                 "found the number 1.0");
   expect_refused(R"({"status": "feasible", "x": {}, )" + model + "}", "found no \"plumb_certificate\"");
   expect_refused(R"({"plumb_certificate": 1, "status": "solved", "x": {}, )" + model + "}",
                  "found the string \"solved\", expected one of \"optimal\"");
@@ -208,86 +221,142 @@ TEST(CertificateReader, RefusesOtherVersionsAndUnknownStatus) {
 }
 
 TEST(CertificateReader, RefusesMissingOrMisplacedParts) {
-  const std::string head = R"({"plumb_certificate": 1, "model": {"file": "m", "sha256": "", "rows": 0, "columns": 0}, )";
-  expect_refused(head + R"("status": "optimal", "x": {}, "y": {}})", "found no \"objective\", expected a \"objective\", which a optimal");
+  const std::string head =
+      R"({"plumb_certificate": 1, "model": {"file": "m", "sha256": "", "rows": 0, "columns": 0}, )";
+  expect_refused(head + R"("status": "optimal", "x": {}, "y": {}})",
+                 "found no \"objective\", expected a \"objective\", which a optimal");
   expect_refused(head + R"("status": "optimal", "objective": "0", "x": {}})", "found no \"y\"");
   expect_refused(head + R"("status": "infeasible"})", "found no \"y\"");
   expect_refused(head + R"("status": "unbounded", "x": {}})", "found no \"ray\"");
   expect_refused(head + R"("status": "feasible"})", "found no \"x\"");
-  expect_refused(head + R"("status": "feasible", "x": {}, "ray": {}})", "found a \"ray\" in a feasible certificate");
-  expect_refused(head + R"("status": "infeasible", "y": {}, "objective": "1"})", "found a \"objective\" in a infeasible");
-  expect_refused(head + R"("status": "feasible", "x": []})", "found an array, expected an object of names and rationals");
+  expect_refused(head + R"("status": "feasible", "x": {}, "ray": {}})",
+                 "found a \"ray\" in a feasible certificate");
+  expect_refused(head + R"("status": "infeasible", "y": {}, "objective": "1"})",
+                 "found a \"objective\" in a infeasible");
+  expect_refused(head + R"("status": "feasible", "x": []})",
+                 "found an array, expected an object of names and rationals");
   expect_refused(R"({"plumb_certificate": 1, "status": "feasible", "x": {}})", "found no \"model\"");
 }
 
 // Farkas multipliers on single sides and bounds: an infeasible certificate's alternative to "y".
-TEST(CertificateReader, ExplicitFarkasRoundTripsAndIsStrict) {
-  using plumb::certificate::EntryKind;
-  using plumb::certificate::Limit;
-  Certificate c;
-  c.model = {"crossed.plumb", "", 1, 1, Rational(0)};
-  c.status = Status::infeasible;
-  c.farkas = {{{EntryKind::row, "r 1", Limit::lower}, Rational(3, 2)},
-              {{EntryKind::column, "x", Limit::upper}, 1}};
-  std::string text = to_json_text(c);
-  EXPECT_NE(
-      text.find(
-          "  \"farkas\": [\n    {\"kind\": \"row\", \"name\": \"r 1\", \"side\": \"lower\", \"multiplier\": "
-          "\"3/2\"},\n"
-          "    {\"kind\": \"column\", \"name\": \"x\", \"side\": \"upper\", \"multiplier\": \"1\"}\n  ]\n"),
-      std::string::npos)
-      << text;
-  EXPECT_EQ(text.find("\"y\""), std::string::npos);
-  Certificate back = parse_certificate(text, "c.json");
-  ASSERT_EQ(back.farkas.size(), 2u);
-  EXPECT_EQ(back.farkas[0].entry, c.farkas[0].entry);
-  EXPECT_EQ(back.farkas[0].multiplier, Rational(3, 2));
-  EXPECT_EQ(to_json_text(back), text);
-
-  const std::string head =
-      R"({"plumb_certificate": 1, "model": {"file": "m", "sha256": "", "rows": 1, "columns": 1}, )";
-  const std::string term = R"({"kind": "row", "name": "r", "side": "lower", "multiplier": "1"})";
-  expect_refused(head + R"("status": "infeasible", "y": {}, "farkas": [)" + term + "]}",
-                 "both \"y\" and \"farkas\"");
-  expect_refused(
-      head + R"("status": "optimal", "objective": "0", "x": {}, "y": {}, "farkas": [)" + term + "]}",
-      "only an infeasible certificate has one");
-  expect_refused(head + R"("status": "infeasible", "farkas": {}})", "an array of");
-  expect_refused(
-      head +
-          R"("status": "infeasible", "farkas": [{"kind": "bound", "name": "r", "side": "lower", "multiplier": "1"}]})",
-      "\"row\" or \"column\"");
-  expect_refused(
-      head +
-          R"("status": "infeasible", "farkas": [{"kind": "row", "name": "r", "side": "left", "multiplier": "1"}]})",
-      "\"lower\" or \"upper\"");
-  expect_refused(
-      head +
-          R"("status": "infeasible", "farkas": [{"kind": "row", "name": "r", "side": "lower", "multiplier": 1}]})",
-      "never a JSON number");
-  expect_refused(
-      head + R"("status": "infeasible", "farkas": [{"kind": "row", "name": "r", "side": "lower"}]})",
-      "exactly \"kind\", \"name\", \"side\" and \"multiplier\"");
-  Certificate optimal = c;
-  optimal.status = Status::optimal;
-  optimal.objective = Rational(0);
-  EXPECT_THROW(to_json_text(optimal), std::invalid_argument);
-}
-
 TEST(CertificateReader, RefusesWrongModelFields) {
   auto with_model = [](const std::string& model) {
     return R"({"plumb_certificate": 1, "status": "feasible", "x": {}, "model": )" + model + "}";
   };
   expect_refused(with_model(R"({"file": "m", "sha256": "", "rows": -1, "columns": 0})"),
                  "found the number -1, expected a whole number of at least 0");
-  expect_refused(with_model(R"({"file": "m", "sha256": "", "rows": 1.5, "columns": 0})"), "found the number 1.5");
+  expect_refused(with_model(R"({"file": "m", "sha256": "", "rows": 1.5, "columns": 0})"),
+                 "found the number 1.5");
   expect_refused(with_model(R"({"file": "m", "sha256": "", "rows": 99999999999999999999, "columns": 0})"),
                  "expected a whole number");
-  expect_refused(with_model(R"({"file": 3, "sha256": "", "rows": 1, "columns": 0})"), "found the number 3, expected a JSON string");
+  expect_refused(with_model(R"({"file": 3, "sha256": "", "rows": 1, "columns": 0})"),
+                 "found the number 3, expected a JSON string");
   expect_refused(with_model(R"({"file": "m", "rows": 1, "columns": 0})"), "found no \"sha256\"");
-  expect_refused(with_model(R"({"file": "m", "sha256": "", "rows": 1, "columns": 0, "objective_constant": 0})"),
-                 "expected a rational written as a string");
+  expect_refused(
+      with_model(R"({"file": "m", "sha256": "", "rows": 1, "columns": 0, "objective_constant": 0})"),
+      "expected a rational written as a string");
   expect_refused(with_model(R"("m")"), "found the string \"m\", expected an object describing the model");
+}
+
+// A crossed row proven by its two sides, in the explicit Farkas form (docs/certificates.md).
+const char* explicit_farkas_text = R"({
+  "plumb_certificate": 1,
+  "model": {
+    "file": "m",
+    "sha256": "",
+    "rows": 1,
+    "columns": 1
+  },
+  "status": "infeasible",
+  "farkas": [
+    {"kind": "row", "name": "R1", "side": "lower", "multiplier": "1"},
+    {"kind": "row", "name": "R1", "side": "upper", "multiplier": "1"}
+  ]
+}
+)";
+
+const char* subsystem_text = R"({
+  "plumb_certificate": 1,
+  "model": {
+    "file": "m",
+    "sha256": "",
+    "rows": 2,
+    "columns": 2
+  },
+  "status": "infeasible_subsystem",
+  "farkas": [
+    {"kind": "row", "name": "R1", "side": "lower", "multiplier": "1/2"},
+    {"kind": "column", "name": "c \"1\"", "side": "upper", "multiplier": "3"}
+  ],
+  "members": [
+    {"kind": "row", "name": "R1", "side": "lower"}
+  ],
+  "hard": [
+    {"kind": "column", "name": "c \"1\"", "side": "upper"}
+  ],
+  "witnesses": [
+    {"drop": [0], "x": {"c \"1\"": "-7/2"}}
+  ]
+}
+)";
+
+TEST(CertificateReader, ExplicitFarkasRoundTrips) {
+  Certificate c = parse_certificate(explicit_farkas_text, "c.json");
+  EXPECT_EQ(c.status, Status::infeasible);
+  EXPECT_TRUE(c.y.empty());
+  ASSERT_EQ(c.farkas.size(), 2u);
+  EXPECT_EQ(c.farkas[1].entry, (Entry{EntryKind::row, "R1", Limit::upper}));
+  EXPECT_EQ(c.farkas[1].multiplier, 1);
+  EXPECT_EQ(to_json_text(c), explicit_farkas_text);
+}
+
+TEST(CertificateReader, SubsystemRoundTrips) {
+  Certificate c = parse_certificate(subsystem_text, "c.json");
+  EXPECT_EQ(c.status, Status::infeasible_subsystem);
+  ASSERT_EQ(c.farkas.size(), 2u);
+  EXPECT_EQ(c.farkas[0].multiplier, Rational(1, 2));
+  EXPECT_EQ(c.members, (std::vector<Entry>{{EntryKind::row, "R1", Limit::lower}}));
+  EXPECT_EQ(c.hard, (std::vector<Entry>{{EntryKind::column, "c \"1\"", Limit::upper}}));
+  ASSERT_EQ(c.witnesses.size(), 1u);
+  EXPECT_EQ(c.witnesses[0].drop, std::vector<std::size_t>{0});
+  EXPECT_EQ(c.witnesses[0].x, (plumb::certificate::NamedValues{{"c \"1\"", Rational(-7, 2)}}));
+  EXPECT_EQ(to_json_text(c), subsystem_text);
+}
+
+// Replaces the first occurrence of `from` in text.
+std::string edited(std::string text, const std::string& from, const std::string& to) {
+  auto at = text.find(from);
+  EXPECT_NE(at, std::string::npos) << from;
+  return text.replace(at, from.size(), to);
+}
+
+TEST(CertificateReader, RefusesMalformedEntriesAndWitnesses) {
+  expect_refused(
+      edited(explicit_farkas_text, "\"status\": \"infeasible\",", "\"status\": \"infeasible\", \"y\": {},"),
+      "expected one of them");
+  expect_refused(edited(explicit_farkas_text, "\"kind\": \"row\"", "\"kind\": \"rows\""),
+                 "expected \"row\" or \"column\"");
+  expect_refused(edited(explicit_farkas_text, "\"side\": \"lower\"", "\"side\": \"below\""),
+                 "expected \"lower\" or \"upper\"");
+  expect_refused(edited(explicit_farkas_text, "\"multiplier\": \"1\"", "\"multiplier\": 1"),
+                 "never a JSON number");
+  expect_refused(edited(explicit_farkas_text, ", \"multiplier\": \"1\"}", "}"), "\"multiplier\"");
+  expect_refused(edited(explicit_farkas_text, "\"side\": \"lower\",", "\"side\": \"lower\", \"note\": 1,"),
+                 "found the key \"note\"");
+  expect_refused(edited(subsystem_text, "\"hard\": [", "\"hardly\": ["), "a \"hard\"");
+  expect_refused(edited(subsystem_text, "\"drop\": [0]", "\"drop\": 0"), "an array of member indices");
+  expect_refused(edited(subsystem_text, "\"drop\": [0]", "\"drop\": [-1]"), "c.json:");
+  expect_refused(edited(subsystem_text, "\"members\": [", "\"members\": {"), "c.json:");
+  expect_refused(edited(explicit_farkas_text, "\"infeasible\"", "\"infeasible_subsystem\""), "a \"members\"");
+}
+
+TEST(CertificateWriter, RefusesSubsystemPartsOutsideTheirStatus) {
+  Certificate c = parse_certificate(subsystem_text, "c.json");
+  c.status = Status::infeasible;
+  EXPECT_THROW(to_json_text(c), std::invalid_argument);
+  c = parse_certificate(explicit_farkas_text, "c.json");
+  c.y = {{"R1", 1}};
+  EXPECT_THROW(to_json_text(c), std::invalid_argument);
 }
 
 }  // namespace

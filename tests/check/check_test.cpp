@@ -260,6 +260,105 @@ TEST(CheckInfeasible, CrossedLimitsProveThemselves) {
   }
 }
 
+// Invented: a delivery of at least 10 t from two suppliers that can send at most 4 t and 3 t.
+// x + y >= 10, x <= 4 and y <= 3 cannot all hold (1 x the row, 1 x each cap: 0 >= 10 - 4 - 3 = 3);
+// drop any one and the rest can.  The caps share the group "supply"; x, y >= 0 are hard.
+plumb::model::Model short_delivery() {
+  auto m = ModelBuilder("short-delivery")
+               .column("x", 0, q(0), q(4))
+               .column("y", 0, q(0), q(3))
+               .row("total", {{"x", 1}, {"y", 1}}, q(10), std::nullopt)
+               .build();
+  for (auto& column : m.columns) {
+    column.label.hard = true;
+    column.upper_label.hard = false;
+    column.upper_label.group = "supply";
+  }
+  return m;
+}
+
+const char* short_delivery_subsystem = R"({
+  "plumb_certificate": 1,
+  "model": {"file": "short-delivery", "sha256": "", "rows": 1, "columns": 2},
+  "status": "infeasible_subsystem",
+  "farkas": [
+    {"kind": "row", "name": "total", "side": "lower", "multiplier": "1"},
+    {"kind": "column", "name": "x", "side": "upper", "multiplier": "1"},
+    {"kind": "column", "name": "y", "side": "upper", "multiplier": "1"}],
+  "members": [
+    {"kind": "row", "name": "total", "side": "lower"},
+    {"kind": "column", "name": "x", "side": "upper"},
+    {"kind": "column", "name": "y", "side": "upper"}],
+  "hard": [
+    {"kind": "column", "name": "x", "side": "lower"},
+    {"kind": "column", "name": "y", "side": "lower"}],
+  "witnesses": [
+    {"drop": [0], "x": {}},
+    {"drop": [1], "x": {"x": "7", "y": "3"}},
+    {"drop": [2], "x": {"x": "4", "y": "6"}}]
+})";
+
+TEST(CheckSubsystem, IrreducibleSubsystemWithWitnesses) {
+  auto m = short_delivery();
+  Certificate c = read(short_delivery_subsystem);
+  auto verdict = verify(m, c);
+  ASSERT_TRUE(verdict.valid) << verdict.failure;
+  EXPECT_EQ(verdict.proven,
+            "infeasible subsystem: 3 members and 2 hard entries admit no x, and dropping any one member (or "
+            "group) leaves them satisfiable (Farkas: they add up to 0 >= 3)");
+  auto removed = c;  // the member x <= 4 left out: the proof now leans on an entry outside the subsystem
+  removed.members.erase(removed.members.begin() + 1);
+  expect_rejected(m, {"a member removed", removed, "neither a member nor a hard entry of the subsystem"});
+  auto broken = c;
+  broken.witnesses[0].x = {{"x", q(5)}};
+  expect_rejected(m, {"a witness above x's cap", broken, "witness 0 breaks the upper bound of column x"});
+  auto changed = c;
+  changed.farkas[0].multiplier = q(2);
+  expect_rejected(m, {"a multiplier changed", changed, "column x keeps the coefficient 1"});
+  auto hard_member = c;
+  hard_member.members.push_back(hard_member.hard.back());
+  hard_member.hard.pop_back();
+  expect_rejected(m, {"a hard entry as a member", hard_member, "is hard by its label"});
+  auto two = c;
+  two.witnesses = {two.witnesses[1], {{0, 2}, {{"x", q(4)}, {"y", q(6)}}}};
+  expect_rejected(m, {"a drop set of two outside one group", two, "do not share one group"});
+  auto unwitnessed = c;
+  unwitnessed.witnesses.pop_back();
+  expect_rejected(m, {"a member without a witness", unwitnessed, "has no witness"});
+  auto twice = c;
+  twice.witnesses[1].drop = {0};
+  expect_rejected(m, {"a member dropped twice", twice, "which witness 0 drops already"});
+  auto repeated = c;
+  repeated.hard.push_back(repeated.members[0]);
+  expect_rejected(m, {"an entry both member and hard", repeated, "is listed twice in the subsystem"});
+  auto infinite = c;
+  infinite.hard.push_back({plumb::certificate::EntryKind::row, "total", plumb::certificate::Limit::upper});
+  expect_rejected(m, {"an infinite side", infinite, "it constrains nothing"});
+}
+
+TEST(CheckSubsystem, GroupDropsTheWholeGroup) {
+  auto m = short_delivery();
+  Certificate c = read(short_delivery_subsystem);
+  c.witnesses = {c.witnesses[0], {{1, 2}, {{"x", q(10)}}}};
+  auto verdict = verify(m, c);
+  EXPECT_TRUE(verdict.valid) << verdict.failure;
+  m.columns[1].upper_label.group = "other supply";
+  expect_rejected(m, {"members of two groups", c, "do not share one group"});
+}
+
+TEST(CheckSubsystem, HardEntriesAloneConflict) {
+  auto m = short_delivery();
+  for (auto& column : m.columns) column.upper_label.hard = true;
+  m.rows[0].label.hard = true;
+  Certificate c = read(short_delivery_subsystem);
+  c.hard.insert(c.hard.end(), c.members.begin(), c.members.end());
+  c.members.clear();
+  c.witnesses.clear();
+  auto verdict = verify(m, c);
+  ASSERT_TRUE(verdict.valid) << verdict.failure;
+  EXPECT_NE(verdict.proven.find("the hard entries alone conflict: 5 of them admit no x"), std::string::npos);
+}
+
 // Invented: maximise 2u + v + 10 with u - v <= 1, v >= 2, u, v >= 0.  From x = (0, 2), moving along
 // r = (1, 1) keeps u - v fixed, raises v, and raises the objective by 3 per step, without end.
 plumb::model::Model unbounded_pair() {

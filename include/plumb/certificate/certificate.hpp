@@ -17,7 +17,7 @@ namespace plumb::certificate {
 
 using numeric::Rational;
 
-enum class Status { optimal, infeasible, unbounded, feasible };
+enum class Status { optimal, infeasible, unbounded, feasible, infeasible_subsystem };
 std::string to_string(Status status);
 std::optional<Status> status_from_string(std::string_view text);
 
@@ -37,8 +37,7 @@ ModelIdentity identify(const model::Model& m);
 // whatever the file lists (a zero entry still has to name something in the model).
 using NamedValues = std::vector<std::pair<std::string, Rational>>;
 
-// One row side or one column bound of a model: a row's "a.x >= lower" or "a.x <= upper", a
-// column's "x_j >= lower" or "x_j <= upper".
+// One row side or one column bound of a model: "a_i x >= lower_i", "x_j <= upper_j", ...
 enum class EntryKind { row, column };
 enum class Limit { lower, upper };
 struct Entry {
@@ -47,17 +46,23 @@ struct Entry {
   Limit limit = Limit::lower;
   friend bool operator==(const Entry&, const Entry&) = default;
 };
-std::string to_string(EntryKind kind);
-std::string to_string(Limit limit);
 
-// A non-negative multiplier on one entry: Farkas multipliers in explicit form.  With each entry
-// written as g(x) >= value (a lower side or bound as it is, an upper one negated), the terms prove
-// that no x meets all their entries when the weighted sum of the g is identically zero and the
-// weighted sum of the values is positive (docs/certificates.md).  A crossed row or column: its
-// lower and its upper entry, each with multiplier 1.
+// A non-negative multiplier on one entry.  Farkas in explicit form: with each entry written as
+// "g(x) >= value" (a lower side/bound as is; an upper side/bound negated), a set of terms proves
+// infeasibility iff every multiplier >= 0, the weighted sum of the entries' left-hand sides is
+// identically zero in x (every column's coefficient sums to 0 exactly), and the weighted sum of
+// the right-hand sides is > 0.  A crossed row: 1 x lower + 1 x upper of the same row.
 struct FarkasTerm {
   Entry entry;
   Rational multiplier;
+  friend bool operator==(const FarkasTerm&, const FarkasTerm&) = default;
+};
+
+// A point that satisfies every entry of a subsystem except those its drop set names.
+struct Witness {
+  std::vector<std::size_t> drop;  // indices into members: one member, or one group's members
+  NamedValues x;                  // column values; absent columns are 0
+  friend bool operator==(const Witness&, const Witness&) = default;
 };
 
 struct Certificate {
@@ -67,18 +72,27 @@ struct Certificate {
   NamedValues x;                      // optimal, unbounded, feasible
   NamedValues y;                      // optimal: row multipliers; infeasible: Farkas multipliers
   NamedValues ray;                    // unbounded only
-  std::vector<FarkasTerm> farkas;     // infeasible, instead of y: multipliers on sides and bounds
+  // infeasible (instead of y) and infeasible_subsystem: Farkas multipliers on sides and bounds.
+  std::vector<FarkasTerm> farkas;
+  std::vector<Entry> members;      // infeasible_subsystem: the entries that may be relaxed
+  std::vector<Entry> hard;         // infeasible_subsystem: entries kept as given
+  std::vector<Witness> witnesses;  // infeasible_subsystem: each member dropped, the rest hold
   // Further keys (e.g. "basis"), written last in sorted order, their own members in the order held;
   // checkers ignore them.
   nlohmann::ordered_json extra = nlohmann::ordered_json::object();
 };
 
-// Which of "objective", "x", "y", "ray" a certificate of this status carries (an infeasible one
-// carries "farkas" in place of "y" when its multipliers are on single sides and bounds).
+// Which of "objective", "x", "y", "ray", "farkas", and "members", "hard" and "witnesses" (the
+// subsystem) a certificate of this status carries.  An infeasible certificate carries "y" or, in
+// the explicit form, "farkas": parts_of gives "y", parts_of_held whichever it holds.
 struct Parts {
-  bool objective = false, x = false, y = false, ray = false;
+  bool objective = false, x = false, y = false, ray = false, farkas = false, subsystem = false;
 };
 Parts parts_of(Status status);
+Parts parts_of_held(const Certificate& certificate);
+
+std::string to_string(EntryKind kind);  // "row", "column"
+std::string to_string(Limit limit);     // "lower", "upper"
 
 // Deterministic JSON text (schema in docs/certificates.md): same certificate, same bytes.
 // Keys in a fixed order, entries in the order held, one entry per line.

@@ -1,0 +1,85 @@
+// plumb explain: why a model is infeasible, as a proven irreducible infeasible subsystem.
+#include "plumb/explain/explain.hpp"
+#include "command.hpp"
+#include "plumb/certificate/certificate.hpp"
+#include "plumb/present/explain.hpp"
+#include "plumb/present/output.hpp"
+#include "plumb/run/budget.hpp"
+
+#include <chrono>
+#include <cstdio>
+#include <iostream>
+#include <optional>
+
+#include <unistd.h>
+
+namespace plumb::cli {
+namespace {
+
+struct ExplainCommandOptions {
+  ModelOptions model;
+  std::string certificate_path;
+  bool json = false;
+  bool by_group = false;
+  std::optional<double> time_limit;
+  std::optional<std::size_t> memory_limit;
+  bool quiet = false;
+};
+
+int run_explain(const ExplainCommandOptions& options) {
+  stop_on_interrupt();
+  model::Model model = load_model(options.model);
+  run::Budget budget(options.time_limit, options.memory_limit);
+  explain::Options search;
+  search.by_group = options.by_group;
+  search.budget = &budget;
+  bool live_progress = !options.quiet && isatty(STDERR_FILENO);
+  if (live_progress) search.progress = progress_printer<explain::Progress>(present::explain_progress_line);
+  explain::Explanation result = explain::explain(model, search);
+  present::RunFigures figures{result.seconds, run::peak_resident_mib()};
+  if (live_progress) std::fprintf(stderr, "\r\033[K");
+
+  if (result.outcome == explain::Outcome::stopped) {
+    std::cerr << "plumb: stopped (" << run::describe(result.stop_reason) << ") after " << result.sub_solves
+              << " sub-solves, during " << result.stopped_during
+              << "; nothing is certified and no certificate was written\n";
+    if (options.json) std::cout << present::explain_json(model, result, figures).dump(2) << "\n";
+    return exit_stopped;
+  }
+  if (!result.verdict.valid) {
+    std::cerr << "plumb: BUG: the independent checker rejected the explanation (" << result.verdict.failure
+              << "); nothing is reported\n";
+    return exit_certificate_invalid;
+  }
+  if (!options.certificate_path.empty())
+    present::write_file(options.certificate_path, certificate::to_json_text(result.certificate),
+                        "certificate");
+  if (options.json)
+    std::cout << present::explain_json(model, result, figures).dump(2) << "\n";
+  else
+    present::write_explain_text(model, result, options.certificate_path, std::cout);
+  return result.outcome == explain::Outcome::feasible ? exit_ok : exit_infeasible;
+}
+
+}  // namespace
+
+void add_explain(CLI::App& app, Action& action) {
+  auto options = std::make_shared<ExplainCommandOptions>();
+  auto* command = app.add_subcommand(
+      "explain", "Find a proven irreducible set of requirements that cannot all hold (an infeasible model)");
+  add_model_options(*command, options->model);
+  command->add_option("--certificate", options->certificate_path,
+                      "Write the certificate (JSON): the subsystem's proof, or a feasible point");
+  command->add_flag("--json", options->json, "Print a machine-readable result");
+  command->add_flag("--by-group", options->by_group,
+                    "Treat each group of requirements (the labels' group) as one requirement");
+  command->add_option("--time-limit", options->time_limit, "Stop after S seconds (exit 3, nothing certified)")
+      ->check(CLI::PositiveNumber);
+  command->add_option("--memory-limit", options->memory_limit, "Stop above MiB of resident memory (exit 3)")
+      ->check(CLI::PositiveNumber);
+  command->add_flag("--quiet", options->quiet,
+                    "No live progress line on stderr (it is shown only when stderr is a terminal)");
+  command->callback([&action, options] { action = [options] { return run_explain(*options); }; });
+}
+
+}  // namespace plumb::cli

@@ -1,0 +1,75 @@
+// plumb explain's renderings on small crafted models (invented, worked by hand): the members in
+// words when labels speak and by name when they do not, the inconsistent model, the progress line.
+#include "plumb/explain/explain.hpp"
+#include "plumb/present/explain.hpp"
+
+#include <gtest/gtest.h>
+
+#include <sstream>
+
+namespace plumb::present {
+namespace {
+
+using model::ModelBuilder;
+using numeric::Rational;
+using Terms = std::vector<std::pair<std::string, Rational>>;
+
+bool has(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
+
+std::string text_of(const model::Model& m) {
+  std::ostringstream out;
+  write_explain_text(m, explain::explain(m), "", out);
+  return out.str();
+}
+
+// Worked by hand: 2 x >= 10 with x <= 3 (bound) cannot hold.
+model::Model small_conflict() {
+  return ModelBuilder("small")
+      .column("x", 1, Rational(0), Rational(3))
+      .row("demand", Terms{{"x", 2}}, Rational(10), {})
+      .build();
+}
+
+TEST(ExplainRender, MembersWithoutLabelsAreNamedWithTheirAlgebra) {
+  std::string text = text_of(small_conflict());
+  EXPECT_TRUE(has(text, "  1. demand\n     2 x >= 10\n     soft; the lower side of row demand\n")) << text;
+  EXPECT_TRUE(has(text, "  2. x\n     x <= 3\n     soft; the upper bound of column x\n")) << text;
+  EXPECT_TRUE(has(text, "(1 row side, 1 bound)")) << text;
+}
+
+TEST(ExplainRender, LabelsGiveStatementsUnitsAndHardness) {
+  model::Model m = small_conflict();
+  m.rows[0].label = {
+      .statement = "ship at least 10 crates", .unit = "crates", .group = "orders", .hard = true};
+  m.columns[0].upper_label.statement = "the van takes 3 loads";
+  std::string text = text_of(m);
+  EXPECT_TRUE(has(text, "  1. the van takes 3 loads\n     x <= 3\n     soft; the upper bound of column x\n"))
+      << text;
+  EXPECT_TRUE(has(text,
+                  "against these hard requirements, kept as given:\n  - ship at least 10 crates\n"
+                  "     2 x >= 10 crates\n     hard; the lower side of row demand; group orders\n"))
+      << text;
+}
+
+TEST(ExplainRender, IntegerMarkersAreNotedAsTheLpRelaxation) {
+  model::Model m = small_conflict();
+  m.columns[0].integer = true;
+  EXPECT_TRUE(has(text_of(m), "note       1 columns are marked integer: plumb explained the LP relaxation\n"));
+}
+
+TEST(ExplainRender, HardAloneIsTheModelInconsistent) {
+  model::Model m = small_conflict();
+  m.rows[0].label.hard = true;
+  m.columns[0].label.hard = true;
+  std::string text = text_of(m);
+  EXPECT_TRUE(has(text, "the model itself is inconsistent")) << text;
+  EXPECT_TRUE(has(text, "These 2 hard requirements cannot all hold together:")) << text;
+}
+
+TEST(ExplainRender, ProgressLineShowsPhaseCandidatesSubSolvesAndSeconds) {
+  std::string line = explain_progress_line({"deletion, rows first", 12, 40, 2.5});
+  EXPECT_EQ(line, "  deletion, rows first             12 left      40 sub-solves      2.5 s");
+}
+
+}  // namespace
+}  // namespace plumb::present
