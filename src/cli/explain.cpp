@@ -1,5 +1,6 @@
 // plumb explain: why a model is infeasible, as a proven irreducible infeasible subsystem.
 #include "plumb/explain/explain.hpp"
+#include "plumb/explain/ways_out.hpp"
 #include "command.hpp"
 #include "plumb/certificate/certificate.hpp"
 #include "plumb/present/explain.hpp"
@@ -24,10 +25,12 @@ struct ExplainCommandOptions {
   std::optional<double> time_limit;
   std::optional<std::size_t> memory_limit;
   bool quiet = false;
+  std::size_t ways_out = 20;  // members whose single way out is worked out
 };
 
 int run_explain(const ExplainCommandOptions& options) {
   stop_on_interrupt();
+  auto start = std::chrono::steady_clock::now();
   model::Model model = load_model(options.model);
   run::Budget budget(options.time_limit, options.memory_limit);
   explain::Options search;
@@ -36,14 +39,20 @@ int run_explain(const ExplainCommandOptions& options) {
   bool live_progress = !options.quiet && isatty(STDERR_FILENO);
   if (live_progress) search.progress = progress_printer<explain::Progress>(present::explain_progress_line);
   explain::Explanation result = explain::explain(model, search);
-  present::RunFigures figures{result.seconds, run::peak_resident_mib()};
+  std::optional<explain::WaysOut> ways;
+  if (result.outcome == explain::Outcome::infeasible_subsystem && result.verdict.valid && options.ways_out > 0) {
+    if (live_progress) search.progress({"ways out", static_cast<long>(result.members.size()), result.sub_solves, result.seconds});
+    ways = explain::find_ways_out(model, result, &budget, options.ways_out);
+  }
   if (live_progress) std::fprintf(stderr, "\r\033[K");
+  present::RunFigures figures{std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count(),
+                             run::peak_resident_mib()};
 
   if (result.outcome == explain::Outcome::stopped) {
     std::cerr << "plumb: stopped (" << run::describe(result.stop_reason) << ") after " << result.sub_solves
               << " sub-solves, during " << result.stopped_during
               << "; nothing is certified and no certificate was written\n";
-    if (options.json) std::cout << present::explain_json(model, result, figures).dump(2) << "\n";
+    if (options.json) std::cout << present::explain_json(model, result, ways ? &*ways : nullptr, figures).dump(2) << "\n";
     return exit_stopped;
   }
   if (!result.verdict.valid) {
@@ -55,9 +64,9 @@ int run_explain(const ExplainCommandOptions& options) {
     present::write_file(options.certificate_path, certificate::to_json_text(result.certificate),
                         "certificate");
   if (options.json)
-    std::cout << present::explain_json(model, result, figures).dump(2) << "\n";
+    std::cout << present::explain_json(model, result, ways ? &*ways : nullptr, figures).dump(2) << "\n";
   else
-    present::write_explain_text(model, result, options.certificate_path, std::cout);
+    present::write_explain_text(model, result, ways ? &*ways : nullptr, options.certificate_path, std::cout);
   return result.outcome == explain::Outcome::feasible ? exit_ok : exit_infeasible;
 }
 
@@ -77,6 +86,8 @@ void add_explain(CLI::App& app, Action& action) {
       ->check(CLI::PositiveNumber);
   command->add_option("--memory-limit", options->memory_limit, "Stop above MiB of resident memory (exit 3)")
       ->check(CLI::PositiveNumber);
+  command->add_option("--ways-out", options->ways_out,
+                      "Work out the least change of each of the first N members alone, and the least total change (default 20; 0 skips the ways out)");
   command->add_flag("--quiet", options->quiet,
                     "No live progress line on stderr (it is shown only when stderr is a terminal)");
   command->callback([&action, options] { action = [options] { return run_explain(*options); }; });

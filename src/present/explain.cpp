@@ -4,6 +4,8 @@
 
 #include "format.hpp"
 
+#include <algorithm>
+
 #include <cstdio>
 #include <ostream>
 
@@ -39,14 +41,17 @@ std::string form(const model::Model& model, const explain::Member& m) {
   return text;
 }
 
+std::string statement_of(const explain::Member& m) {
+  return m.label && !m.label->statement.empty() ? m.label->statement : m.entry.name;
+}
+
 std::string hardness(const explain::Member& m) { return m.hard ? "hard" : "soft"; }
 
 void write_members(std::ostream& out, const model::Model& model,
                    const std::vector<const explain::Member*>& list, bool numbered) {
   std::size_t k = 0;
   for (const explain::Member* m : list) {
-    std::string statement = m->label && !m->label->statement.empty() ? m->label->statement : m->entry.name;
-    out << "  " << (numbered ? std::to_string(++k) + ". " : "- ") << statement << "\n";
+    out << "  " << (numbered ? std::to_string(++k) + ". " : "- ") << statement_of(*m) << "\n";
     out << "     " << form(model, *m) << "\n";
     out << "     " << hardness(*m) << "; " << side_words(model, *m);
     if (!m->group.empty()) out << "; group " << m->group;
@@ -81,6 +86,125 @@ std::string status_text(explain::Outcome outcome) {
   return "unknown";
 }
 
+// Multipliers scaled to the smallest integers with the same ratios, while those stay readable
+// (at most a million); else the multipliers as they are.
+constexpr long readable_weight = 1000000;
+std::vector<Rational> small_weights(const std::vector<Rational>& multipliers) {
+  numeric::Integer common = 1;
+  for (const Rational& m : multipliers) common = lcm(common, numeric::Integer(denominator(m)));
+  numeric::Integer divisor = 0;
+  for (const Rational& m : multipliers) divisor = gcd(divisor, numeric::Integer(numerator(m) * (common / denominator(m))));
+  if (divisor == 0) return multipliers;
+  std::vector<Rational> scaled;
+  for (const Rational& m : multipliers) {
+    scaled.push_back(m * common / divisor);
+    if (scaled.back() > readable_weight) return multipliers;
+  }
+  return scaled;
+}
+
+// The Farkas combination as a derivation: each term with its weight, a lower side added and an
+// upper one subtracted; everything in x cancels and what is left, 0 >= total, is false.
+struct Derivation {
+  struct Term {
+    const explain::Member* member;
+    Rational weight;
+    Rational contribution;  // weight times the limit, signed as it enters the total
+  };
+  std::vector<Term> terms;  // the largest contributions first
+  Rational total;           // > 0
+  std::vector<std::string> cancelled;  // the columns that drop out
+};
+
+Derivation derivation_of(const model::Model& model, const explain::Explanation& result) {
+  std::vector<const explain::Member*> taking_part = used(result.members);
+  for (const explain::Member* m : used(result.hard)) taking_part.push_back(m);
+  std::vector<Rational> multipliers;
+  for (const explain::Member* m : taking_part) multipliers.push_back(m->multiplier);
+  std::vector<Rational> weights = small_weights(multipliers);
+  Derivation d;
+  std::vector<bool> touched(static_cast<std::size_t>(model.column_count()), false);
+  for (std::size_t k = 0; k < taking_part.size(); ++k) {
+    const explain::Member* m = taking_part[k];
+    Rational contribution = is_lower(*m) ? Rational(weights[k] * m->value) : Rational(-weights[k] * m->value);
+    d.total += contribution;
+    d.terms.push_back({m, weights[k], contribution});
+    if (!is_row(*m)) {
+      touched[static_cast<std::size_t>(m->index)] = true;
+      continue;
+    }
+    for (int j : model.matrix.row_columns(m->index)) touched[static_cast<std::size_t>(j)] = true;
+  }
+  for (int j = 0; j < model.column_count(); ++j)
+    if (touched[static_cast<std::size_t>(j)]) d.cancelled.push_back(model.columns[static_cast<std::size_t>(j)].name);
+  std::stable_sort(d.terms.begin(), d.terms.end(),
+                   [](const Derivation::Term& a, const Derivation::Term& b) { return abs(a.contribution) > abs(b.contribution); });
+  return d;
+}
+
+constexpr std::size_t derivation_lines = 8;  // terms of a long derivation shown before "and N more"
+
+void write_derivation(std::ostream& out, const model::Model& model, const explain::Explanation& result) {
+  Derivation d = derivation_of(model, result);
+  out << "\nWhy: weigh these requirements and add them up (a lower limit added, an upper one subtracted):\n";
+  std::size_t shown = std::min(d.terms.size(), derivation_lines);
+  for (std::size_t k = 0; k < shown; ++k) {
+    const Derivation::Term& t = d.terms[k];
+    out << "  " << (is_lower(*t.member) ? "+ " : "- ") << numeric::to_display(t.weight, 8) << " x "
+        << statement_of(*t.member) << "\n";
+    out << "       " << form(model, *t.member) << "\n";
+  }
+  if (shown < d.terms.size()) {
+    Rational rest = 0;
+    for (std::size_t k = shown; k < d.terms.size(); ++k) rest += d.terms[k].contribution;
+    out << "  and " << detail::count_of(d.terms.size() - shown, "more requirement", "more requirements")
+        << " (--json lists them), whose weighted limits add " << numeric::to_display(rest, 8) << "\n";
+  }
+  out << "  Every quantity cancels (" << detail::name_list(d.cancelled, 6) << "), and what is left says\n"
+      << "  0 >= " << numeric::to_display(d.total, 8) << ", which is false: no plan meets all of them.\n";
+}
+
+// "lower it from 12000 to at most 11530 bbl (by 470)"
+std::string move_words(const explain::Member& m, const Rational& to, const Rational& by) {
+  std::string unit = m.unit.empty() ? "" : " " + m.unit;
+  return std::string(is_lower(m) ? "lower it from " : "raise it from ") + numeric::to_display(m.value, 8) +
+         (is_lower(m) ? " to at most " : " to at least ") + numeric::to_display(to, 8) + unit + " (by " +
+         numeric::to_display(by, 8) + unit + ")";
+}
+
+void write_ways_out(std::ostream& out, const explain::WaysOut& ways) {
+  out << "\nWays out, each requirement alone (the least change that makes the whole model feasible):\n";
+  std::size_t k = 0;
+  for (const explain::SingleChange& c : ways.single) {
+    out << "  " << ++k << ". " << statement_of(c.member) << ":\n     ";
+    switch (c.result) {
+      case explain::SingleChange::Result::moves: out << move_words(c.member, c.to, c.by); break;
+      case explain::SingleChange::Result::not_enough:
+        out << "changing this alone is not enough: another conflict remains";
+        break;
+      case explain::SingleChange::Result::stopped: out << "not worked out: a limit was reached"; break;
+    }
+    out << "\n";
+  }
+  if (ways.not_tried)
+    out << "  (" << detail::count_of(ways.not_tried, "more member was", "more members were")
+        << " not tried: --json and --ways-out N)\n";
+  const explain::LeastTotalChange& least = ways.least;
+  out << "\nLeast total change";
+  switch (least.result) {
+    case explain::LeastTotalChange::Result::found:
+      out << " (every soft side and bound may move; each weighs 1 per unit of its own): "
+          << numeric::to_display(least.total, 8) << " in all\n";
+      for (const explain::Move& move : least.moves)
+        out << "  - " << statement_of(move.member) << ": " << move_words(move.member, move.to, move.by) << "\n";
+      break;
+    case explain::LeastTotalChange::Result::hard_conflict:
+      out << ": none; the hard requirements conflict whatever the soft ones do\n";
+      break;
+    case explain::LeastTotalChange::Result::stopped: out << ": not worked out, a limit was reached\n"; break;
+  }
+}
+
 nlohmann::ordered_json member_json(const model::Model& model, const explain::Member& m) {
   nlohmann::ordered_json item;
   item["kind"] = certificate::to_string(m.entry.kind);
@@ -96,10 +220,75 @@ nlohmann::ordered_json member_json(const model::Model& model, const explain::Mem
   return item;
 }
 
+nlohmann::ordered_json derivation_json(const model::Model& model, const explain::Explanation& result) {
+  Derivation d = derivation_of(model, result);
+  nlohmann::ordered_json terms = nlohmann::ordered_json::array();
+  for (const Derivation::Term& t : d.terms) {
+    nlohmann::ordered_json term;
+    term["kind"] = certificate::to_string(t.member->entry.kind);
+    term["name"] = t.member->entry.name;
+    term["side"] = certificate::to_string(t.member->entry.limit);
+    put_number(term["weight"], t.weight);
+    put_number(term["contribution"], t.contribution);
+    terms.push_back(std::move(term));
+  }
+  nlohmann::ordered_json out;
+  out["terms"] = std::move(terms);
+  put_number(out["total"], d.total);
+  out["cancelled"] = d.cancelled;
+  return out;
+}
+
+nlohmann::ordered_json move_json(const explain::Member& m, const Rational& to, const Rational& by) {
+  nlohmann::ordered_json item;
+  item["kind"] = certificate::to_string(m.entry.kind);
+  item["name"] = m.entry.name;
+  item["side"] = certificate::to_string(m.entry.limit);
+  put_number(item["from"], m.value);
+  put_number(item["to"], to);
+  put_number(item["by"], by);
+  return item;
+}
+
+nlohmann::ordered_json ways_out_json(const explain::WaysOut& ways) {
+  nlohmann::ordered_json single = nlohmann::ordered_json::array();
+  for (const explain::SingleChange& c : ways.single) {
+    nlohmann::ordered_json item = move_json(c.member, c.to, c.by);
+    const char* result = c.result == explain::SingleChange::Result::moves        ? "moves"
+                         : c.result == explain::SingleChange::Result::not_enough ? "not_enough"
+                                                                                  : "stopped";
+    if (c.result != explain::SingleChange::Result::moves) {
+      item.erase("to");
+      item.erase("by");
+    }
+    item["result"] = result;
+    item["checked"] = c.verdict.valid;
+    single.push_back(std::move(item));
+  }
+  nlohmann::ordered_json least;
+  const explain::LeastTotalChange& l = ways.least;
+  least["result"] = l.result == explain::LeastTotalChange::Result::found           ? "found"
+                    : l.result == explain::LeastTotalChange::Result::hard_conflict ? "hard_conflict"
+                                                                                    : "stopped";
+  least["weights"] = "1 per unit of each side or bound";
+  if (l.result == explain::LeastTotalChange::Result::found) {
+    put_number(least["total"], l.total);
+    nlohmann::ordered_json moves = nlohmann::ordered_json::array();
+    for (const explain::Move& m : l.moves) moves.push_back(move_json(m.member, m.to, m.by));
+    least["moves"] = std::move(moves);
+  }
+  least["checked"] = l.verdict.valid;
+  nlohmann::ordered_json out;
+  out["single"] = std::move(single);
+  out["not_tried"] = ways.not_tried;
+  out["least_total_change"] = std::move(least);
+  return out;
+}
+
 }  // namespace
 
 void write_explain_text(const model::Model& model, const explain::Explanation& result,
-                        const std::string& certificate_path, std::ostream& out) {
+                        const explain::WaysOut* ways, const std::string& certificate_path, std::ostream& out) {
   out << "model      " << model.source.path << "\n";
   out << "           sha256 " << model.source.sha256.substr(0, 16) << "...  " << model.row_count()
       << " rows, " << model.column_count() << " columns, " << model.matrix.nonzeros() << " non-zeros\n";
@@ -140,6 +329,8 @@ void write_explain_text(const model::Model& model, const explain::Explanation& r
       write_members(out, model, against, false);
     }
   }
+  if (result.outcome != explain::Outcome::feasible) write_derivation(out, model, result);
+  if (ways) write_ways_out(out, *ways);
   out << "\n";
   if (result.outcome != explain::Outcome::feasible) {
     out << "search     the first Farkas certificate used " << result.support_size << " sides and bounds; ";
@@ -158,7 +349,7 @@ void write_explain_text(const model::Model& model, const explain::Explanation& r
 }
 
 nlohmann::ordered_json explain_json(const model::Model& model, const explain::Explanation& result,
-                                    const RunFigures& figures) {
+                                    const explain::WaysOut* ways, const RunFigures& figures) {
   nlohmann::ordered_json out;
   out["model"] = {{"file", model.source.path},           {"sha256", model.source.sha256},
                   {"rows", model.row_count()},           {"columns", model.column_count()},
@@ -184,6 +375,9 @@ nlohmann::ordered_json explain_json(const model::Model& model, const explain::Ex
   out["members"] = std::move(members);
   out["groups"] = result.groups;
   out["hard"] = std::move(hard);
+  if (result.outcome == explain::Outcome::infeasible_subsystem || result.outcome == explain::Outcome::inconsistent)
+    out["derivation"] = derivation_json(model, result);
+  if (ways) out["ways_out"] = ways_out_json(*ways);
   std::size_t rows = 0;
   for (const auto& m : result.members) rows += is_row(m);
   out["sizes"] = {{"members", result.members.size()},       {"row_sides", rows},

@@ -67,12 +67,12 @@ std::string name_list(const std::vector<std::string>& names, std::size_t shown);
 // One finding of inspect in a line: what it means, then where (the health report's own wording).
 std::string finding_text(const health::Finding& finding, const health::HealthReport& report);
 
-// JSON forms: an exact number is its canonical fraction text ("-3/2"); an absent side is null.
 // The row or column a plan misses, and the label that speaks for that side: a bound's own label
 // when it has words, else its column's.
 const std::string& violation_name(const model::Model& model, const audit::Violation& v);
 const model::Label& violation_label(const model::Model& model, const audit::Violation& v);
 
+// JSON forms: an exact number is its canonical fraction text ("-3/2"); an absent side is null.
 nlohmann::json exact_json(const Rational& value);
 nlohmann::json side_json(const model::Side& side);
 // Sets target's "fraction", "decimal" (rounded to 12 digits when it must be) and "rounded".

@@ -7,7 +7,8 @@ results into docs/benchmarks.md.
 
 SHARED is the shared data folder (holding netlib-infeas/) or that folder itself; by default
 ../shared beside the repository.  Each instance runs as its own `plumb explain --json` process; it
-counts as proven when it exits with the infeasible status (10) and `plumb check --expect
+runs with `--ways-out 0`: the IIS search and its proof are measured, not the ways out (one exact
+LP per member, docs/explaining.md).  It counts as proven when it exits with the infeasible status (10) and `plumb check --expect
 infeasible_subsystem` accepts its certificate.  Per instance: the IIS's row sides and bounds, the
 hard entries it uses, the sub-solves, float and exact seconds, wall seconds and peak memory.
 Summary: `proven N/27, total T s, median members M`.
@@ -35,7 +36,7 @@ EXIT_WORDS = {0: "feasible", 10: "infeasible", 3: "stopped", 1: "bad input", 4: 
 
 def explain_instance(plumb, model, scratch, time_limit):
     name, certificate, stdout_path, stderr_path, code, seconds, peak = netlib_solve.run_command(
-        plumb, "explain", model, scratch, time_limit)
+        plumb, "explain", model, scratch, time_limit, ("--ways-out", "0"))
     result = {"instance": name, "exit": code, "total_seconds": seconds, "peak_mib": peak,
               "status": EXIT_WORDS.get(code, "killed" if code < 0 else f"exit {code}"), "certified": False}
     if code in (0, 10):

@@ -135,14 +135,14 @@ def run_measured(command, stdout_path, stderr_path, kill_after):
     return process.returncode, seconds, usage.ru_maxrss / 1024  # ru_maxrss is in KiB on Linux
 
 
-def run_command(plumb, command_name, model, scratch, time_limit):
-    """Runs `plumb COMMAND MODEL --json --quiet --time-limit S --certificate FILE`, measured; returns
+def run_command(plumb, command_name, model, scratch, time_limit, extra=()):
+    """Runs `plumb COMMAND MODEL --json --quiet --time-limit S --certificate FILE [EXTRA...]`, measured; returns
     (instance name, certificate path, stdout path, stderr path, exit status, wall seconds, peak MiB)."""
     name = model.name[: -len(".mps.gz")]
     certificate = scratch / f"{name}.certificate.json"
     stdout_path, stderr_path = scratch / f"{name}.out.json", scratch / f"{name}.err"
     command = [plumb, command_name, str(model), "--json", "--quiet", "--time-limit", f"{time_limit:g}",
-               "--certificate", str(certificate)]
+               "--certificate", str(certificate), *extra]
     code, seconds, peak = run_measured(command, stdout_path, stderr_path, time_limit + KILL_GRACE_SECONDS)
     return name, certificate, stdout_path, stderr_path, code, seconds, peak
 

@@ -8,6 +8,8 @@
 
 #include <cstdio>
 #include <filesystem>
+#include <fstream>
+#include <iterator>
 #include <string>
 
 namespace {
@@ -79,6 +81,26 @@ TEST(ExplainCommand, ExhaustedTimeLimitExitsThree) {
   EXPECT_EQ(run.status, 3) << run.out << run.err;
   EXPECT_TRUE(has(run.err, "stopped")) << run.err;
   EXPECT_TRUE(run.out.empty());
+}
+
+}  // namespace
+
+namespace {
+
+// The README shows the demo's explanation from the conflict to the ways out; it must be the real
+// output, every exact way out included (worked by hand in ways_out_test.cpp).
+TEST(ExplainCommand, ReadmeShowsTheRealExplanation) {
+  auto run = plumb::test::run(PLUMB_EXECUTABLE, {"explain", corpus + "/summer-blend-tight.plumb"});
+  ASSERT_EQ(run.status, 10) << run.err;
+  std::ifstream file(fs::path(corpus).parent_path() / "README.md");
+  std::string readme((std::istreambuf_iterator<char>(file)), std::istreambuf_iterator<char>());
+  auto start = readme.find("These requirements cannot all hold together:");
+  ASSERT_NE(start, std::string::npos);
+  auto end = readme.find("```", start);
+  std::string shown = readme.substr(start, end - start);
+  EXPECT_TRUE(has(run.out, shown)) << "README block:\n" << shown << "\nactual output:\n" << run.out;
+  EXPECT_TRUE(has(shown, "raise it from 5000 to at least ~5674.6988 bbl")) << shown;
+  EXPECT_TRUE(has(shown, "0 >= 112000, which is false")) << shown;
 }
 
 }  // namespace

@@ -18,7 +18,7 @@ bool has(const std::string& text, const std::string& part) { return text.find(pa
 
 std::string text_of(const model::Model& m) {
   std::ostringstream out;
-  write_explain_text(m, explain::explain(m), "", out);
+  write_explain_text(m, explain::explain(m), nullptr, "", out);
   return out.str();
 }
 

@@ -2,6 +2,7 @@
 #pragma once
 
 #include "plumb/explain/explain.hpp"
+#include "plumb/explain/ways_out.hpp"
 #include "plumb/model/model.hpp"
 #include "plumb/present/caution.hpp"
 #include "plumb/present/solve.hpp"
@@ -14,15 +15,17 @@
 namespace plumb::present {
 
 // The model, the verdict in words, each member with its statement (or name), its algebraic form
-// with the side taking part and hard or soft; the hard requirements it runs against; the search's
+// with the side taking part and hard or soft; the hard requirements it runs against; why they
+// conflict (the Farkas combination as a derivation); the ways out when given; the search's
 // figures; what the checker proved; the caution.  Layout in docs/explaining.md.
 void write_explain_text(const model::Model& model, const explain::Explanation& result,
-                        const std::string& certificate_path, std::ostream& out);
+                        const explain::WaysOut* ways, const std::string& certificate_path, std::ostream& out);
 
 // The keys of docs/explaining.md: status, members and hard entries with names, sides, values,
-// labels and multipliers (exact fractions), sizes, sub-solves, seconds, peak memory.
+// labels and multipliers (exact fractions), the derivation, the ways out when given, sizes,
+// sub-solves, seconds, peak memory.
 nlohmann::ordered_json explain_json(const model::Model& model, const explain::Explanation& result,
-                                    const RunFigures& figures);
+                                    const explain::WaysOut* ways, const RunFigures& figures);
 
 // One state of the live progress line: phase, candidates left, sub-solves, elapsed seconds.
 std::string explain_progress_line(const explain::Progress& progress);

@@ -1,0 +1,95 @@
+// Ways out of an infeasible model: the least change of one requirement alone and the least total
+// change, each asserted exactly against values worked by hand, and each answer's certificate
+// accepted by the checker on its changed model.
+#include "plumb/explain/ways_out.hpp"
+#include "plumb/model/read.hpp"
+
+#include <gtest/gtest.h>
+
+namespace plumb::explain {
+namespace {
+
+using certificate::Limit;
+using model::ModelBuilder;
+using numeric::Rational;
+
+Rational q(long p, long d = 1) { return Rational(p, d); }
+
+const SingleChange& change_of(const WaysOut& ways, const std::string& name) {
+  for (const SingleChange& c : ways.single)
+    if (c.member.entry.name == name) return c;
+  throw std::runtime_error("no way out for " + name);
+}
+
+// The corpus's tight blend (invented data).  Worked by hand from its header: ethanol is 10 % of the
+// batch B, butane 0 (it is the worst for vapour pressure), naphtha the rest; the cap 52 butane +
+// 11.5 naphtha + 3.2 reformate + 4.6 alkylate + 18 ethanol <= 78000 then needs
+//   batch alone:     1.8 B + 16000 + 13800 + 11.5 (0.9 B - 8000) <= 78000, B <= 140200/12.15
+//   reformate alone: 125100 - 8.3 R <= 78000, R >= 47100/8.3
+//   alkylate alone:  104300 - 6.9 A <= 78000, A >= 26300/6.9
+TEST(WaysOut, TightBlendEachAloneAndTheLeastTotal) {
+  model::Model m = model::read_model(std::string(PLUMB_CORPUS_DIR) + "/summer-blend-tight.plumb");
+  Explanation e = explain(m);
+  ASSERT_EQ(e.outcome, Outcome::infeasible_subsystem);
+  WaysOut ways = find_ways_out(m, e, nullptr, 20);
+  ASSERT_EQ(ways.single.size(), 3u);
+  EXPECT_EQ(ways.not_tried, 0u);
+  const SingleChange& batch = change_of(ways, "batch");
+  ASSERT_EQ(batch.result, SingleChange::Result::moves);
+  EXPECT_EQ(batch.to, q(2804000, 243));  // 140200 / 12.15
+  EXPECT_EQ(batch.by, q(112000, 243));
+  const SingleChange& reformate = change_of(ways, "reformate");
+  ASSERT_EQ(reformate.result, SingleChange::Result::moves);
+  EXPECT_EQ(reformate.to, q(471000, 83));  // 47100 / 8.3
+  const SingleChange& alkylate = change_of(ways, "alkylate");
+  ASSERT_EQ(alkylate.result, SingleChange::Result::moves);
+  EXPECT_EQ(alkylate.to, q(263000, 69));  // 26300 / 6.9
+  for (const SingleChange& c : ways.single) {
+    EXPECT_TRUE(c.verdict.valid) << c.member.entry.name << ": " << c.verdict.failure;
+    EXPECT_TRUE(c.proof.model.sha256.empty());  // a changed model never passes for the file
+  }
+  // Per unit, the batch is the cheapest to move: 460.9 bbl against 674.7 and 811.6.
+  ASSERT_EQ(ways.least.result, LeastTotalChange::Result::found);
+  EXPECT_TRUE(ways.least.verdict.valid) << ways.least.verdict.failure;
+  EXPECT_EQ(ways.least.total, q(112000, 243));
+  ASSERT_EQ(ways.least.moves.size(), 1u);
+  EXPECT_EQ(ways.least.moves[0].member.entry.name, "batch");
+  EXPECT_EQ(ways.least.moves[0].to, q(2804000, 243));
+}
+
+// Invented: two deliveries of at least 5 t each through one gate of at most 8 t, and a second,
+// separate conflict y >= 3 against y <= 1.  Moving the gate alone cannot fix the second conflict.
+TEST(WaysOut, OneChangeAloneIsNotEnoughWhenAnotherConflictRemains) {
+  auto m = ModelBuilder("two-conflicts")
+               .column("a", 0)
+               .column("b", 0)
+               .column("y", 0, q(0), q(1))
+               .row("first", {{"a", 1}}, q(5), std::nullopt)
+               .row("second", {{"b", 1}}, q(5), std::nullopt)
+               .row("gate", {{"a", 1}, {"b", 1}}, std::nullopt, q(8))
+               .row("y_floor", {{"y", 1}}, q(3), std::nullopt)
+               .build();
+  Member gate;
+  gate.entry = {certificate::EntryKind::row, "gate", Limit::upper};
+  gate.index = 2;
+  gate.value = 8;
+  auto changes = single_changes(m, {gate});
+  ASSERT_EQ(changes.size(), 1u);
+  EXPECT_EQ(changes[0].result, SingleChange::Result::not_enough);
+  EXPECT_TRUE(changes[0].verdict.valid) << changes[0].verdict.failure;
+  // Both conflicts together: the gate up by 2 and the floor down by 2 (or y's cap up by 2), 4 in all.
+  LeastTotalChange least = least_total_change(m);
+  ASSERT_EQ(least.result, LeastTotalChange::Result::found);
+  EXPECT_EQ(least.total, 4);
+  EXPECT_TRUE(least.verdict.valid) << least.verdict.failure;
+}
+
+TEST(WaysOut, HardEntriesAloneConflictingLeaveNoLeastChange) {
+  auto m = ModelBuilder("hard-conflict").column("x", 0, q(0), q(1)).row("floor", {{"x", 1}}, q(3), std::nullopt).build();
+  m.rows[0].label.hard = true;
+  m.columns[0].label.hard = true;
+  EXPECT_EQ(least_total_change(m).result, LeastTotalChange::Result::hard_conflict);
+}
+
+}  // namespace
+}  // namespace plumb::explain
