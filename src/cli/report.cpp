@@ -5,6 +5,9 @@
 #include "plumb/audit/audit.hpp"
 #include "plumb/certificate/certificate.hpp"
 #include "plumb/exact/solve.hpp"
+#include "plumb/explain/explain.hpp"
+#include "plumb/explain/ways_out.hpp"
+#include "plumb/present/explain.hpp"
 #include "plumb/health/health.hpp"
 #include "plumb/model/read.hpp"
 #include "plumb/run/budget.hpp"
@@ -71,6 +74,8 @@ std::optional<PlanForReport> read_plan(const ReportCommandOptions& options, cons
   return read;
 }
 
+constexpr std::size_t report_ways_out = 20;  // members whose single way out the report works out
+
 std::string default_output(const std::string& model_path, bool markdown) {
   std::filesystem::path path(model_path);
   if (path.extension() == ".gz") path.replace_extension();
@@ -81,6 +86,23 @@ void write_text_file(const std::string& path, const std::string& text, const cha
   std::ofstream out(path, std::ios::binary);
   out << text;
   if (!out.flush()) throw model::InputError({path}, std::string("a ") + what + " that cannot be written", "a writable path");
+}
+
+// An infeasible model's conflict from plumb explain (a proven IIS, its derivation and ways out);
+// the solve's own Farkas multipliers when explain stops or finds nothing to say.
+std::optional<present::ConflictSection> conflict_of(const model::Model& model, const exact::CertifiedSolution& result,
+                                                    run::Budget& budget) {
+  if (result.solution.outcome != exact::Outcome::infeasible) return std::nullopt;
+  explain::Options search;
+  search.budget = &budget;
+  explain::Explanation explanation = explain::explain(model, search);
+  bool proven = explanation.verdict.valid && (explanation.outcome == explain::Outcome::infeasible_subsystem ||
+                                              explanation.outcome == explain::Outcome::inconsistent);
+  if (!proven) return present::conflict_from_farkas(model, result);
+  std::optional<explain::WaysOut> ways;
+  if (explanation.outcome == explain::Outcome::infeasible_subsystem)
+    ways = explain::find_ways_out(model, explanation, &budget, report_ways_out);
+  return present::conflict_from_explanation(model, explanation, ways ? &*ways : nullptr);
 }
 
 int run_report(const ReportCommandOptions& options) {
@@ -122,7 +144,7 @@ int run_report(const ReportCommandOptions& options) {
       write_text_file(input.certificate.sibling_path, input.certificate.text, "certificate");
     }
   }
-  input.conflict = present::conflict_from_farkas(model, result);
+  input.conflict = conflict_of(model, result, budget);
   if (plan && !stopped) {
     if (plan->duals) plan->request.options.duals = &plan->duals->values;
     audit::Audit audited = audit::run_audit(model, plan->plan, plan->request.options);

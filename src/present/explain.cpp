@@ -8,6 +8,7 @@
 
 #include <cstdio>
 #include <ostream>
+#include <sstream>
 
 namespace plumb::present {
 namespace {
@@ -393,6 +394,56 @@ nlohmann::ordered_json explain_json(const model::Model& model, const explain::Ex
   out["proven"] = result.verdict.proven;
   out["caution"] = caution_line;
   return out;
+}
+
+ConflictSection conflict_from_explanation(const model::Model& model, const explain::Explanation& result,
+                                          const explain::WaysOut* ways) {
+  ConflictSection conflict;
+  conflict.source = result.outcome == explain::Outcome::inconsistent
+                        ? "plumb explain: the hard requirements alone conflict (the model itself is inconsistent)"
+                        : "plumb explain: an irreducible infeasible subsystem, proven (drop any one requirement "
+                          "and the rest can hold)";
+  // The derivation's whole-number weights, so the table and the derivation agree.
+  Derivation d = derivation_of(model, result);
+  for (const Derivation::Term& t : d.terms) {
+    const explain::Member* m = t.member;
+    ConflictMember member{m->entry.name, statement_of(*m) + (m->hard ? " (hard)" : ""), form(model, *m),
+                          t.weight, {}};
+    if (is_row(*m)) {
+      auto columns = model.matrix.row_columns(m->index);
+      auto positions = model.matrix.row_positions(m->index);
+      for (std::size_t k = 0; k < columns.size(); ++k)
+        member.terms.push_back({model.columns[static_cast<std::size_t>(columns[k])].name, model.matrix.value(positions[k])});
+    }
+    conflict.members.push_back(std::move(member));
+  }
+  auto lines_of = [](const std::string& text) {
+    std::vector<std::string> lines;
+    std::istringstream in(text);
+    for (std::string line; std::getline(in, line);)
+      if (!line.empty()) lines.push_back(line);
+    return lines;
+  };
+  std::ostringstream derivation;
+  write_derivation(derivation, model, result);
+  conflict.derivation = lines_of(derivation.str());
+  if (ways) {
+    for (const explain::SingleChange& c : ways->single)
+      if (c.result == explain::SingleChange::Result::moves)
+        conflict.ways_out.push_back(statement_of(c.member) + " alone: " + move_words(c.member, c.to, c.by));
+      else if (c.result == explain::SingleChange::Result::not_enough)
+        conflict.ways_out.push_back(statement_of(c.member) + " alone: not enough, another conflict remains");
+    if (ways->least.result == explain::LeastTotalChange::Result::found) {
+      std::string least = "The least total change (each side and bound weighed 1 per unit of its own, " +
+                          numeric::to_display(ways->least.total, 8) + " in all): ";
+      for (std::size_t k = 0; k < ways->least.moves.size(); ++k) {
+        const explain::Move& move = ways->least.moves[k];
+        least += (k ? "; " : "") + statement_of(move.member) + ": " + move_words(move.member, move.to, move.by);
+      }
+      conflict.ways_out.push_back(least);
+    }
+  }
+  return conflict;
 }
 
 std::string explain_progress_line(const explain::Progress& p) {

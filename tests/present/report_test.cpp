@@ -246,6 +246,11 @@ TEST(ReportCommand, WritesTheReportAndTheCertificateBesideMarkdown) {
   auto infeasible = plumb::test::run(PLUMB_EXECUTABLE, {"report", corpus + "/summer-blend-tight.plumb", "-o", "-"});
   EXPECT_EQ(infeasible.status, 0) << infeasible.err;
   EXPECT_TRUE(has(infeasible.out, "Why no plan exists"));
+  // The command's conflict comes from plumb explain: the proven subsystem and its exact ways out
+  // (worked by hand in tests/explain/ways_out_test.cpp).
+  EXPECT_TRUE(has(infeasible.out, "plumb explain: an irreducible infeasible subsystem, proven"));
+  EXPECT_TRUE(has(infeasible.out, "0 &gt;= 112000, which is false"));
+  EXPECT_TRUE(has(infeasible.out, "raise it from 5000 to at least ~5674.6988 bbl")) << infeasible.out;
 }
 
 }  // namespace

@@ -5,6 +5,7 @@
 #include "plumb/explain/ways_out.hpp"
 #include "plumb/model/model.hpp"
 #include "plumb/present/caution.hpp"
+#include "plumb/present/report.hpp"
 #include "plumb/present/solve.hpp"
 
 #include <nlohmann/json.hpp>
@@ -26,6 +27,11 @@ void write_explain_text(const model::Model& model, const explain::Explanation& r
 // sub-solves, seconds, peak memory.
 nlohmann::ordered_json explain_json(const model::Model& model, const explain::Explanation& result,
                                     const explain::WaysOut* ways, const RunFigures& figures);
+
+// The report's conflict section from a proven subsystem: its members and the hard entries the proof
+// uses, the derivation, and the ways out when given.
+ConflictSection conflict_from_explanation(const model::Model& model, const explain::Explanation& result,
+                                          const explain::WaysOut* ways);
 
 // One state of the live progress line: phase, candidates left, sub-solves, elapsed seconds.
 std::string explain_progress_line(const explain::Progress& progress);
