@@ -9,6 +9,7 @@
 
 #include <chrono>
 #include <cstdio>
+#include <filesystem>
 #include <iostream>
 #include <optional>
 
@@ -22,11 +23,18 @@ struct ExplainCommandOptions {
   std::string certificate_path;
   bool json = false;
   bool by_group = false;
+  bool all = false;
   std::optional<double> time_limit;
   std::optional<std::size_t> memory_limit;
   bool quiet = false;
   std::size_t ways_out = 20;  // members whose single way out is worked out
 };
+
+// --all --certificate FILE: conflict k's certificate beside FILE, "blend.json" -> "blend-k.json".
+std::string further_certificate_path(const std::string& path, std::size_t k) {
+  std::filesystem::path p(path);
+  return p.replace_filename(p.stem().string() + "-" + std::to_string(k) + p.extension().string()).string();
+}
 
 int run_explain(const ExplainCommandOptions& options) {
   stop_on_interrupt();
@@ -35,6 +43,7 @@ int run_explain(const ExplainCommandOptions& options) {
   run::Budget budget(options.time_limit, options.memory_limit);
   explain::Options search;
   search.by_group = options.by_group;
+  search.all = options.all;
   search.budget = &budget;
   bool live_progress = !options.quiet && isatty(STDERR_FILENO);
   if (live_progress) search.progress = progress_printer<explain::Progress>(present::explain_progress_line);
@@ -55,19 +64,27 @@ int run_explain(const ExplainCommandOptions& options) {
     if (options.json) std::cout << present::explain_json(model, result, ways ? &*ways : nullptr, figures).dump(2) << "\n";
     return exit_stopped;
   }
-  if (!result.verdict.valid) {
+  bool all_valid = result.verdict.valid;
+  for (const explain::Explanation& more : result.further) all_valid = all_valid && more.verdict.valid;
+  if (!all_valid) {
     std::cerr << "plumb: BUG: the independent checker rejected the explanation (" << result.verdict.failure
               << "); nothing is reported\n";
     return exit_certificate_invalid;
   }
-  if (!options.certificate_path.empty())
+  if (!options.certificate_path.empty()) {
     present::write_file(options.certificate_path, certificate::to_json_text(result.certificate),
                         "certificate");
+    for (std::size_t k = 0; k < result.further.size(); ++k)
+      present::write_file(further_certificate_path(options.certificate_path, k + 2),
+                          certificate::to_json_text(result.further[k].certificate), "certificate");
+  }
   if (options.json)
     std::cout << present::explain_json(model, result, ways ? &*ways : nullptr, figures).dump(2) << "\n";
   else
     present::write_explain_text(model, result, ways ? &*ways : nullptr, options.certificate_path, std::cout);
-  return result.outcome == explain::Outcome::feasible ? exit_ok : exit_infeasible;
+  if (result.outcome == explain::Outcome::feasible) return exit_ok;
+  // A stopped --all has reported the conflicts it found, each proven; the search is incomplete.
+  return result.stop_reason == run::StopReason::none ? exit_infeasible : exit_stopped;
 }
 
 }  // namespace
@@ -86,6 +103,9 @@ void add_explain(CLI::App& app, Action& action) {
       ->check(CLI::PositiveNumber);
   command->add_option("--memory-limit", options->memory_limit, "Stop above MiB of resident memory (exit 3)")
       ->check(CLI::PositiveNumber);
+  command->add_flag("--all", options->all,
+                    "Keep going after the first conflict: set one of its requirements aside and search again, until "
+                    "the rest is feasible (each conflict proven; certificates FILE-2, FILE-3, ... beside --certificate)");
   command->add_option("--ways-out", options->ways_out,
                       "Work out the least change of each of the first N members alone, and the least total change (default 20; 0 skips the ways out)");
   command->add_flag("--quiet", options->quiet,

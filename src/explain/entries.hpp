@@ -20,6 +20,10 @@ class Entries {
   // The id of a row's or column's side or bound, or -1 when it is infinite.
   int row_side(int row, certificate::Limit limit) const;
   int column_bound(int column, certificate::Limit limit) const;
+  int id_of(const Member& m) const {
+    return m.entry.kind == certificate::EntryKind::row ? row_side(m.index, m.entry.limit)
+                                                       : column_bound(m.index, m.entry.limit);
+  }
   // Pairs of ids (lower, upper) of rows and columns whose lower limit lies above the upper one.
   const std::vector<std::pair<int, int>>& crossed() const { return crossed_; }
 

@@ -279,11 +279,69 @@ void certify_subsystem(const model::Model& model, const Entries& entries, const 
 
 }  // namespace
 
+// From an infeasible answer on the active entries: the deletion filter in each order, the smallest
+// subsystem kept and certified into `out` (or, when the soft entries cannot help, the hard ones'
+// own conflict).
+void find_subsystem(const model::Model& model, Prober& prober, const Entries& entries, const Units& units,
+                    const Answer& first, bool by_group, Explanation& out) {
+  std::vector<int> start_units = support(first.farkas, units);
+  out.support_size = static_cast<long>(first.farkas.size());
+  std::optional<Found> best;
+  for (const Order& order : orders) {
+    std::vector<int> candidates = in_order(start_units, units, entries, order.bounds_first);
+    activate(prober, entries, units, candidates);
+    Found found = deletion_filter(prober, units, candidates, first.farkas, std::string("deletion, ") + order.name);
+    out.orders.push_back({order.name, found.units.size(), found.sub_solves});
+    if (!best || found.units.size() < best->units.size()) best = std::move(found);
+    // No order changes the answer when the hard entries alone conflict, nor when the first
+    // support is irreducible already: then it is the only infeasible subset of itself.
+    if (best->units.empty() || best->units.size() == start_units.size()) break;
+  }
+  if (!best->units.empty()) {
+    out.outcome = Outcome::infeasible_subsystem;
+    certify_subsystem(model, entries, units, *best, true, by_group, out);
+    return;
+  }
+  // Every soft entry dropped and still infeasible: an irreducible set of hard entries.
+  Units hard = hard_units(entries);
+  std::vector<int> candidates = support(best->farkas, hard);
+  for (int id = 0; id < entries.size(); ++id) prober.set_active(id, false);
+  for (int unit : candidates) prober.set_active(hard.entries[static_cast<std::size_t>(unit)].front(), true);
+  Found found = deletion_filter(prober, hard, candidates, best->farkas, "deletion, hard entries");
+  out.outcome = Outcome::inconsistent;
+  certify_subsystem(model, entries, hard, found, false, false, out);
+}
+
+// --all: after each conflict, one of its units is set aside for good (the first in model order:
+// a heuristic, and so is the cover it builds) and the rest searched again, until it is feasible.
+void find_further(const model::Model& model, Prober& prober, const Entries& entries, const Units& units,
+                  const Options& options, Explanation& out) {
+  std::vector<bool> aside(units.entries.size(), false);
+  const Explanation* last = &out;
+  while (last->outcome == Outcome::infeasible_subsystem) {
+    int unit = units.of[static_cast<std::size_t>(entries.id_of(last->members.front()))];
+    aside[static_cast<std::size_t>(unit)] = true;
+    for (int id : units.entries[static_cast<std::size_t>(unit)]) out.set_aside.push_back(entries[id]);
+    std::vector<int> others;
+    for (int u = 0; u < static_cast<int>(units.entries.size()); ++u)
+      if (!aside[static_cast<std::size_t>(u)]) others.push_back(u);
+    activate(prober, entries, units, others);
+    Answer next = prober.probe("all: the next conflict");
+    if (!next.infeasible) return;
+    Explanation more;
+    find_subsystem(model, prober, entries, units, next, options.by_group, more);
+    more.verdict = check::verify(model, more.certificate);
+    out.further.push_back(std::move(more));
+    last = &out.further.back();
+  }
+}
+
 Explanation explain(const model::Model& model, const Options& options) {
   auto start = std::chrono::steady_clock::now();
   Explanation out;
   Entries entries(model);
   Prober prober(model, entries, options, out);
+  Units units = soft_units(entries, options.by_group);
   try {
     Answer first = prober.probe("first solve");
     if (!first.infeasible) {
@@ -292,35 +350,7 @@ Explanation explain(const model::Model& model, const Options& options) {
       out.certificate.status = certificate::Status::feasible;
       out.certificate.x = named(model, first.x);
     } else {
-      Units units = soft_units(entries, options.by_group);
-      std::vector<int> start_units = support(first.farkas, units);
-      out.support_size = static_cast<long>(first.farkas.size());
-      std::optional<Found> best;
-      for (const Order& order : orders) {
-        std::vector<int> candidates = in_order(start_units, units, entries, order.bounds_first);
-        activate(prober, entries, units, candidates);
-        Found found =
-            deletion_filter(prober, units, candidates, first.farkas, std::string("deletion, ") + order.name);
-        out.orders.push_back({order.name, found.units.size(), found.sub_solves});
-        if (!best || found.units.size() < best->units.size()) best = std::move(found);
-        // No order changes the answer when the hard entries alone conflict, nor when the first
-        // support is irreducible already: then it is the only infeasible subset of itself.
-        if (best->units.empty() || best->units.size() == start_units.size()) break;
-      }
-      if (!best->units.empty()) {
-        out.outcome = Outcome::infeasible_subsystem;
-        certify_subsystem(model, entries, units, *best, true, options.by_group, out);
-      } else {
-        // Every soft entry dropped and still infeasible: an irreducible set of hard entries.
-        Units hard = hard_units(entries);
-        std::vector<int> candidates = support(best->farkas, hard);
-        for (int id = 0; id < entries.size(); ++id) prober.set_active(id, false);
-        for (int unit : candidates)
-          prober.set_active(hard.entries[static_cast<std::size_t>(unit)].front(), true);
-        Found found = deletion_filter(prober, hard, candidates, best->farkas, "deletion, hard entries");
-        out.outcome = Outcome::inconsistent;
-        certify_subsystem(model, entries, hard, found, false, false, out);
-      }
+      find_subsystem(model, prober, entries, units, first, options.by_group, out);
     }
   } catch (const run::Stopped& stopped) {
     Explanation stopped_out;
@@ -332,6 +362,14 @@ Explanation explain(const model::Model& model, const Options& options) {
     out = std::move(stopped_out);
   }
   if (out.outcome != Outcome::stopped) out.verdict = check::verify(model, out.certificate);
+  if (options.all && out.outcome == Outcome::infeasible_subsystem) {
+    try {
+      find_further(model, prober, entries, units, options, out);
+    } catch (const run::Stopped& stopped) {
+      out.stop_reason = stopped.reason;  // the conflicts found so far stand, each proven
+      out.stopped_during = stopped.progress;
+    }
+  }
   out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
   return out;
 }

@@ -286,6 +286,32 @@ nlohmann::ordered_json ways_out_json(const explain::WaysOut& ways) {
   return out;
 }
 
+// --all: each further conflict with its members, the hard entries it uses and its derivation, then
+// the requirements set aside on the way, which relaxed together remove every conflict found.
+void write_further(std::ostream& out, const model::Model& model, const explain::Explanation& result) {
+  if (result.set_aside.empty()) return;
+  std::size_t count = 1 + result.further.size();
+  for (std::size_t k = 0; k < result.further.size(); ++k) {
+    const explain::Explanation& more = result.further[k];
+    out << "\nConflict " << k + 2 << " of " << count << " (found with the requirements set aside below left out):\n";
+    write_members(out, model, all_of(more.members), true);
+    auto against = used(more.hard);
+    if (!against.empty()) {
+      out << "\nagainst these hard requirements, kept as given:\n";
+      write_members(out, model, against, false);
+    }
+    write_derivation(out, model, more);
+    out << "  checked: " << more.verdict.proven << "\n";
+  }
+  out << "\n" << (result.stop_reason == run::StopReason::none
+                      ? "All " + std::to_string(count) + " conflicts found (--all). "
+                      : "The search for further conflicts stopped (" + run::describe(result.stop_reason) +
+                            "): these " + std::to_string(count) + " are the ones found so far. ")
+      << "Relaxing these together removes every one of them\n(a heuristic cover: one requirement set aside "
+         "per conflict, not the smallest such set):\n";
+  write_members(out, model, all_of(result.set_aside), false);
+}
+
 }  // namespace
 
 void write_explain_text(const model::Model& model, const explain::Explanation& result,
@@ -332,6 +358,7 @@ void write_explain_text(const model::Model& model, const explain::Explanation& r
   }
   if (result.outcome != explain::Outcome::feasible) write_derivation(out, model, result);
   if (ways) write_ways_out(out, *ways);
+  write_further(out, model, result);
   out << "\n";
   if (result.outcome != explain::Outcome::feasible) {
     out << "search     the first Farkas certificate used " << result.support_size << " sides and bounds; ";
@@ -379,6 +406,25 @@ nlohmann::ordered_json explain_json(const model::Model& model, const explain::Ex
   if (result.outcome == explain::Outcome::infeasible_subsystem || result.outcome == explain::Outcome::inconsistent)
     out["derivation"] = derivation_json(model, result);
   if (ways) out["ways_out"] = ways_out_json(*ways);
+  if (!result.set_aside.empty()) {
+    nlohmann::ordered_json further = nlohmann::ordered_json::array(), aside = nlohmann::ordered_json::array();
+    for (const explain::Explanation& more : result.further) {
+      nlohmann::ordered_json conflict, members = nlohmann::ordered_json::array(), hard = nlohmann::ordered_json::array();
+      for (const auto& m : more.members) members.push_back(member_json(model, m));
+      for (const explain::Member* m : used(more.hard)) hard.push_back(member_json(model, *m));
+      conflict["members"] = std::move(members);
+      conflict["groups"] = more.groups;
+      conflict["hard"] = std::move(hard);
+      conflict["derivation"] = derivation_json(model, more);
+      conflict["checked"] = more.verdict.valid;
+      conflict["proven"] = more.verdict.proven;
+      further.push_back(std::move(conflict));
+    }
+    for (const auto& m : result.set_aside) aside.push_back(member_json(model, m));
+    out["further"] = std::move(further);
+    out["set_aside"] = std::move(aside);
+    out["all_complete"] = result.stop_reason == run::StopReason::none;
+  }
   std::size_t rows = 0;
   for (const auto& m : result.members) rows += is_row(m);
   out["sizes"] = {{"members", result.members.size()},       {"row_sides", rows},

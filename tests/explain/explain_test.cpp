@@ -3,6 +3,7 @@
 // each member's witness meets every other entry.  Crafted models (invented, worked by hand) have
 // one known IIS; itest2 and itest6 (Netlib's infeasible collection, ../shared/netlib-infeas) have
 // several overlapping ones, so only validity and irreducibility are asserted there.
+#include "plumb/exact/solve.hpp"
 #include "plumb/explain/explain.hpp"
 #include "plumb/model/read.hpp"
 #include "shared_data.hpp"
@@ -362,6 +363,59 @@ TEST_P(ExplainItest, SubsystemIsValidAndIrreducible) {
   ASSERT_EQ(e.outcome, Outcome::infeasible_subsystem);
   expect_proven_iis(m, e);
   EXPECT_LT(e.members.size(), static_cast<std::size_t>(m.row_count() + 2 * m.column_count()));
+}
+
+// After --all, relaxing every set-aside requirement must leave a feasible model: solved exactly here,
+// on a copy with those sides and bounds dropped, outside the search.
+void expect_cover_removes_every_conflict(const model::Model& m, const Explanation& e) {
+  model::Model relaxed = m;
+  for (const Member& aside : e.set_aside) {
+    bool lower = aside.entry.limit == Limit::lower;
+    if (aside.entry.kind == EntryKind::row)
+      (lower ? relaxed.rows[aside.index].lower : relaxed.rows[aside.index].upper).reset();
+    else
+      (lower ? relaxed.columns[aside.index].lower : relaxed.columns[aside.index].upper).reset();
+  }
+  EXPECT_NE(exact::certified_solve(relaxed).solution.outcome, exact::Outcome::infeasible);
+}
+
+TEST_P(ExplainItest, AllFindsEveryConflictEachProven) {
+  auto folder = plumb::test::shared_dir / "netlib-infeas";
+  if (!plumb::test::shared_folder_present(folder)) GTEST_SKIP() << "no " << folder;
+  model::Model m = model::read_model((folder / (GetParam() + ".mps.gz")).string());
+  Options options;
+  options.all = true;
+  Explanation e = explain(m, options);
+  ASSERT_EQ(e.outcome, Outcome::infeasible_subsystem);
+  expect_proven_iis(m, e);
+  for (const Explanation& more : e.further) expect_proven_iis(m, more);
+  EXPECT_GE(e.further.size(), 1u);  // both have overlapping conflicts (more than one)
+  EXPECT_EQ(e.set_aside.size(), 1 + e.further.size());
+  EXPECT_EQ(e.stop_reason, run::StopReason::none);
+  expect_cover_removes_every_conflict(m, e);
+}
+
+// Invented, worked by hand: three quantities, each with a floor of 3 and a cap of 1: three
+// disjoint conflicts, one per quantity.  --all finds all three; the cover holds one of each.
+TEST(Explain, AllFindsThreeDisjointConflicts) {
+  ModelBuilder builder("three-conflicts");
+  for (const char* name : {"a", "b", "c"}) builder.column(name, 0, q(0), q(1));
+  for (const char* name : {"a", "b", "c"}) builder.row(std::string(name) + "_floor", Terms{{name, 1}}, q(3), {});
+  model::Model m = builder.build();
+  Options options;
+  options.all = true;
+  Explanation e = explain(m, options);
+  ASSERT_EQ(e.outcome, Outcome::infeasible_subsystem);
+  ASSERT_EQ(e.further.size(), 2u);
+  std::set<std::set<std::pair<std::string, Limit>>> found{members_of(e), members_of(e.further[0]),
+                                                          members_of(e.further[1])};
+  std::set<std::set<std::pair<std::string, Limit>>> expected;
+  for (const char* name : {"a", "b", "c"})
+    expected.insert({{std::string(name) + "_floor", Limit::lower}, {name, Limit::upper}});
+  EXPECT_EQ(found, expected);
+  for (const Explanation& more : e.further) expect_proven_iis(m, more);
+  EXPECT_EQ(e.set_aside.size(), 3u);
+  expect_cover_removes_every_conflict(m, e);
 }
 
 INSTANTIATE_TEST_SUITE_P(Netlib, ExplainItest, ::testing::Values("itest2", "itest6"),

@@ -1,6 +1,7 @@
 // Ways out of an infeasible model: the least change of one requirement alone and the least total
 // change, each asserted exactly against values worked by hand, and each answer's certificate
 // accepted by the checker on its changed model.
+#include "plumb/exact/solve.hpp"
 #include "plumb/explain/ways_out.hpp"
 #include "plumb/model/read.hpp"
 
@@ -55,6 +56,29 @@ TEST(WaysOut, TightBlendEachAloneAndTheLeastTotal) {
   ASSERT_EQ(ways.least.moves.size(), 1u);
   EXPECT_EQ(ways.least.moves[0].member.entry.name, "batch");
   EXPECT_EQ(ways.least.moves[0].to, q(2804000, 243));
+}
+
+// Each way out checked outside ways_out.cpp: the demo with the member moved to the reported value is
+// feasible, and with it stopped a millionth short of that value it is still infeasible (each an
+// exact certified solve of the edited model).
+TEST(WaysOut, TightBlendValuesAreExactlyTheBoundary) {
+  model::Model m = model::read_model(std::string(PLUMB_CORPUS_DIR) + "/summer-blend-tight.plumb");
+  WaysOut ways = find_ways_out(m, explain(m), nullptr, 20);
+  for (const SingleChange& c : ways.single) {
+    ASSERT_EQ(c.result, SingleChange::Result::moves) << c.member.entry.name;
+    bool lower = c.member.entry.limit == Limit::lower;
+    auto solved_at = [&](const Rational& value) {
+      model::Model edited = m;
+      if (c.member.entry.kind == certificate::EntryKind::row)
+        (lower ? edited.rows[c.member.index].lower : edited.rows[c.member.index].upper) = value;
+      else
+        (lower ? edited.columns[c.member.index].lower : edited.columns[c.member.index].upper) = value;
+      return exact::certified_solve(edited).solution.outcome;
+    };
+    Rational short_of = lower ? Rational(c.to + q(1, 1000000)) : Rational(c.to - q(1, 1000000));
+    EXPECT_EQ(solved_at(c.to), exact::Outcome::optimal) << c.member.entry.name;
+    EXPECT_EQ(solved_at(short_of), exact::Outcome::infeasible) << c.member.entry.name;
+  }
 }
 
 // Invented: two deliveries of at least 5 t each through one gate of at most 8 t, and a second,

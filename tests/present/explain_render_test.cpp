@@ -37,6 +37,29 @@ TEST(ExplainRender, MembersWithoutLabelsAreNamedWithTheirAlgebra) {
   EXPECT_TRUE(has(text, "(1 row side, 1 bound)")) << text;
 }
 
+// Worked by hand: 2 x >= 10 and x <= 3, weighted 1 and 2, give 0 >= 10 - 6 = 4.
+TEST(ExplainRender, DerivationInWholeNumbers) {
+  std::string text = text_of(small_conflict());
+  EXPECT_TRUE(has(text, "  + 1 x demand\n       2 x >= 10\n  - 2 x x\n       x <= 3\n")) << text;
+  EXPECT_TRUE(has(text, "Every quantity cancels (x), and what is left says\n  0 >= 4, which is false")) << text;
+}
+
+// Invented chain: x0 >= 1 (a row), each x(k+1) - x(k) >= 1 for k < 11, and x11 <= 5 (a bound): all
+// thirteen entries are needed (x11 would have to reach 12), every weight is 1, and they add up to
+// 0 >= 1 + 11 - 5 = 7.  The derivation shows eight lines (the largest contribution, -5, first) and
+// counts the five others, each adding 1.
+TEST(ExplainRender, LongDerivationIsSummarised) {
+  ModelBuilder builder("chain");
+  for (int k = 0; k <= 11; ++k) builder.column("x" + std::to_string(k), 0, Rational(0), k == 11 ? model::Side(5) : model::Side());
+  builder.row("start", Terms{{"x0", 1}}, Rational(1), {});
+  for (int k = 0; k < 11; ++k)
+    builder.row("step" + std::to_string(k), Terms{{"x" + std::to_string(k + 1), 1}, {"x" + std::to_string(k), -1}},
+                Rational(1), {});
+  std::string text = text_of(builder.build());
+  EXPECT_TRUE(has(text, "  and 5 more requirements (--json lists them), whose weighted limits add 5\n")) << text;
+  EXPECT_TRUE(has(text, "0 >= 7, which is false")) << text;
+}
+
 TEST(ExplainRender, LabelsGiveStatementsUnitsAndHardness) {
   model::Model m = small_conflict();
   m.rows[0].label = {

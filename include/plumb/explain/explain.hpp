@@ -24,6 +24,7 @@ struct Progress {
 
 struct Options {
   bool by_group = false;          // members are whole groups (Label::group); ungrouped entries alone
+  bool all = false;               // after each conflict set one member aside and search again
   run::Budget* budget = nullptr;  // one budget for the whole search; no limits when null
   std::function<void(const Progress&)> progress;
 };
@@ -67,8 +68,12 @@ struct Explanation {
   long support_size = 0;                 // entries in the first Farkas certificate's support
   long sub_solves = 0;
   double float_seconds = 0, exact_seconds = 0, seconds = 0;
-  run::StopReason stop_reason = run::StopReason::none;
+  run::StopReason stop_reason = run::StopReason::none;  // also set when a limit cut --all short
   std::string stopped_during;  // the phase a stopped search was in
+  // --all: the further conflicts found with the members in `set_aside` left out, each proven on its
+  // own; `set_aside` relaxed together removes every conflict found (a heuristic cover, not minimal).
+  std::vector<Explanation> further;
+  std::vector<Member> set_aside;
 };
 
 // Finds and certifies an IIS of an infeasible model (docs/explaining.md), or certifies that it is
