@@ -24,6 +24,7 @@ struct ExplainCommandOptions {
   bool json = false;
   bool by_group = false;
   bool all = false;
+  std::string within;
   std::optional<double> time_limit;
   std::optional<std::size_t> memory_limit;
   bool quiet = false;
@@ -44,6 +45,8 @@ int run_explain(const ExplainCommandOptions& options) {
   explain::Options search;
   search.by_group = options.by_group;
   search.all = options.all;
+  search.within = options.within;
+  if (!options.within.empty()) search.by_group = true;
   search.budget = &budget;
   bool live_progress = !options.quiet && isatty(STDERR_FILENO);
   if (live_progress) search.progress = progress_printer<explain::Progress>(present::explain_progress_line);
@@ -103,6 +106,9 @@ void add_explain(CLI::App& app, Action& action) {
       ->check(CLI::PositiveNumber);
   command->add_option("--memory-limit", options->memory_limit, "Stop above MiB of resident memory (exit 3)")
       ->check(CLI::PositiveNumber);
+  command->add_option("--within", options->within,
+                      "With groups: open this group to its single requirements, the other groups staying whole "
+                      "(implies --by-group)");
   command->add_flag("--all", options->all,
                     "Keep going after the first conflict: set one of its requirements aside and search again, until "
                     "the rest is feasible (each conflict proven; certificates FILE-2, FILE-3, ... beside --certificate)");

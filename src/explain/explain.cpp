@@ -101,10 +101,12 @@ class Prober {
 // soft entries under --by-group); entries in no unit are always active.
 struct Units {
   std::vector<std::vector<int>> entries;  // per unit, its entry ids ascending
+  std::vector<std::string> group;         // per unit, the group it stands for; "" for a single entry
   std::vector<int> of;                    // per entry, its unit or -1
 };
 
-Units soft_units(const Entries& entries, bool by_group) {
+// Under --by-group every group is one unit, except the one opened by --within, whose entries stand alone.
+Units soft_units(const Entries& entries, const Options& options) {
   Units units;
   units.of.assign(static_cast<std::size_t>(entries.size()), -1);
   std::map<std::string, int> group_unit;
@@ -112,8 +114,12 @@ Units soft_units(const Entries& entries, bool by_group) {
     const Member& m = entries[id];
     if (m.hard) continue;
     int unit = static_cast<int>(units.entries.size());
-    if (by_group && !m.group.empty()) unit = group_unit.try_emplace(m.group, unit).first->second;
-    if (unit == static_cast<int>(units.entries.size())) units.entries.emplace_back();
+    bool grouped = options.by_group && !m.group.empty() && m.group != options.within;
+    if (grouped) unit = group_unit.try_emplace(m.group, unit).first->second;
+    if (unit == static_cast<int>(units.entries.size())) {
+      units.entries.emplace_back();
+      units.group.push_back(grouped ? m.group : "");
+    }
     units.entries[static_cast<std::size_t>(unit)].push_back(id);
     units.of[static_cast<std::size_t>(id)] = unit;
   }
@@ -128,6 +134,7 @@ Units hard_units(const Entries& entries) {
     if (!entries[id].hard) continue;
     units.of[static_cast<std::size_t>(id)] = static_cast<int>(units.entries.size());
     units.entries.push_back({id});
+    units.group.emplace_back();
   }
   return units;
 }
@@ -263,7 +270,7 @@ void certify_subsystem(const model::Model& model, const Entries& entries, const 
     if (!members_are_soft) continue;
     witness.x = named(model, found.witness.at(unit));
     c.witnesses.push_back(std::move(witness));
-    if (by_group) out.groups.push_back(entries[units.entries[static_cast<std::size_t>(unit)].front()].group);
+    if (by_group) out.groups.push_back(units.group[static_cast<std::size_t>(unit)]);
   }
   if (members_are_soft) {
     for (int id = 0; id < entries.size(); ++id)
@@ -341,7 +348,7 @@ Explanation explain(const model::Model& model, const Options& options) {
   Explanation out;
   Entries entries(model);
   Prober prober(model, entries, options, out);
-  Units units = soft_units(entries, options.by_group);
+  Units units = soft_units(entries, options);
   try {
     Answer first = prober.probe("first solve");
     if (!first.infeasible) {

@@ -312,6 +312,32 @@ void write_further(std::ostream& out, const model::Model& model, const explain::
   write_members(out, model, all_of(result.set_aside), false);
 }
 
+// --by-group, in a sentence: "the contract requirements conflict with the hard regulatory
+// requirements, kept as given".  A unit is a group, or a single entry (ungrouped, or opened by
+// --within) named by its statement.
+std::string group_sentence(const explain::Explanation& result) {
+  std::vector<std::string> units;
+  for (std::size_t k = 0; k < result.groups.size() && k < result.certificate.witnesses.size(); ++k)
+    units.push_back(result.groups[k].empty()
+                        ? "\"" + statement_of(result.members[result.certificate.witnesses[k].drop.front()]) + "\""
+                        : "the " + result.groups[k] + " requirements");
+  std::vector<std::string> hard_groups;
+  for (const explain::Member* m : used(result.hard))
+    if (!m->group.empty() && std::find(hard_groups.begin(), hard_groups.end(), m->group) == hard_groups.end())
+      hard_groups.push_back(m->group);
+  auto joined = [](const std::vector<std::string>& words) {
+    std::string text;
+    for (std::size_t k = 0; k < words.size(); ++k)
+      text += (k == 0 ? "" : k + 1 == words.size() ? " and " : ", ") + words[k];
+    return text;
+  };
+  bool plural = units.size() > 1 || !result.groups.front().empty();
+  std::string text = "In groups: " + joined(units);
+  if (hard_groups.empty()) return text + (plural ? " cannot all hold together" : " cannot hold");
+  return text + (plural ? " conflict" : " conflicts") + " with the hard " + joined(hard_groups) +
+         " requirements, kept as given";
+}
+
 }  // namespace
 
 void write_explain_text(const model::Model& model, const explain::Explanation& result,
@@ -328,15 +354,22 @@ void write_explain_text(const model::Model& model, const explain::Explanation& r
       out << "status     feasible: a point meets every row side and column bound, so nothing conflicts\n";
       break;
     case explain::Outcome::infeasible_subsystem:
-      out << "status     infeasible: " << result.members.size()
-          << " soft requirements cannot all hold together with the hard ones ("
-          << detail::count_of(rows, "row side", "row sides") << ", "
-          << detail::count_of(result.members.size() - rows, "bound", "bounds")
-          << "); drop any one of them and the rest can hold\n\n";
-      if (!result.groups.empty())
-        out << "These " << result.groups.size()
-            << " groups cannot all hold together: " << detail::name_list(result.groups, result.groups.size())
-            << "\n";
+      if (result.groups.empty())
+        out << "status     infeasible: " << result.members.size()
+            << " soft requirements cannot all hold together with the hard ones ("
+            << detail::count_of(rows, "row side", "row sides") << ", "
+            << detail::count_of(result.members.size() - rows, "bound", "bounds")
+            << "); drop any one of them and the rest can hold\n\n";
+      else
+        out << "status     infeasible: "
+            << (result.groups.size() == 1 ? std::string("one requirement")
+                                          : std::to_string(result.groups.size()) + " requirements")
+            << " taken group by group (" << detail::count_of(rows, "row side", "row sides") << ", "
+            << detail::count_of(result.members.size() - rows, "bound", "bounds") << ") "
+            << (result.groups.size() == 1 ? "cannot hold with the hard ones; without it the rest can"
+                                          : "cannot all hold together with the hard ones; drop any one and the rest can hold")
+            << "\n\n";
+      if (!result.groups.empty()) out << group_sentence(result) << "\n\n";
       out << "These requirements cannot all hold together:\n";
       write_members(out, model, all_of(result.members), true);
       break;

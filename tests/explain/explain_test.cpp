@@ -292,6 +292,22 @@ TEST(Explain, ByGroupDropsWholeGroups) {
   EXPECT_EQ(e.certificate.witnesses[0].drop.size(), 3u);  // the whole contract group at once
 }
 
+// --within contract: the contract rows stand alone, the plant group stays whole; z_order, which
+// took part only as a member of its group, drops out.
+TEST(Explain, WithinOpensOneGroupToItsMembers) {
+  model::Model m = grouped_model();
+  Options options;
+  options.by_group = true;
+  options.within = "contract";
+  Explanation e = explain(m, options);
+  ASSERT_EQ(e.outcome, Outcome::infeasible_subsystem);
+  expect_proven_iis(m, e);
+  std::set<std::pair<std::string, Limit>> expected{
+      {"x_order", Limit::lower}, {"y_order", Limit::lower}, {"capacity", Limit::upper}};
+  EXPECT_EQ(members_of(e), expected);
+  EXPECT_EQ(e.groups, (std::vector<std::string>{"", "", "plant"}));
+}
+
 TEST(Explain, WithoutGroupsTheSameModelGivesSingleRequirements) {
   model::Model m = grouped_model();
   Explanation e = explain(m);

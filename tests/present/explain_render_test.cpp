@@ -60,6 +60,33 @@ TEST(ExplainRender, LongDerivationIsSummarised) {
   EXPECT_TRUE(has(text, "0 >= 7, which is false")) << text;
 }
 
+// Worked by hand: x >= 4 and y >= 4 (group contract) cannot hold under the hard x + y <= 6 (group
+// plant).  By group, the contract conflicts with the plant; opened, its two rows are named.
+TEST(ExplainRender, GroupsAreSaidInASentence) {
+  model::Model m = ModelBuilder("groups")
+                       .column("x", 1)
+                       .column("y", 1)
+                       .row("x_order", Terms{{"x", 1}}, Rational(4), {})
+                       .row("y_order", Terms{{"y", 1}}, Rational(4), {})
+                       .row("capacity", Terms{{"x", 1}, {"y", 1}}, {}, Rational(6))
+                       .build();
+  for (auto& row : m.rows) row.label.group = "contract";
+  m.rows[2].label.group = "plant";
+  m.rows[2].label.hard = true;
+  for (auto& column : m.columns) column.label.hard = true;
+  explain::Options options;
+  options.by_group = true;
+  std::ostringstream grouped;
+  write_explain_text(m, explain::explain(m, options), nullptr, "", grouped);
+  EXPECT_TRUE(has(grouped.str(), "In groups: the contract requirements conflict with the hard plant requirements, kept as given"))
+      << grouped.str();
+  options.within = "contract";
+  std::ostringstream opened;
+  write_explain_text(m, explain::explain(m, options), nullptr, "", opened);
+  EXPECT_TRUE(has(opened.str(), "In groups: \"x_order\" and \"y_order\" conflict with the hard plant requirements"))
+      << opened.str();
+}
+
 TEST(ExplainRender, LabelsGiveStatementsUnitsAndHardness) {
   model::Model m = small_conflict();
   m.rows[0].label = {

@@ -24,6 +24,7 @@ struct Progress {
 
 struct Options {
   bool by_group = false;          // members are whole groups (Label::group); ungrouped entries alone
+  std::string within;             // by_group: this group's entries stand alone (--within GROUP)
   bool all = false;               // after each conflict set one member aside and search again
   run::Budget* budget = nullptr;  // one budget for the whole search; no limits when null
   std::function<void(const Progress&)> progress;
@@ -61,7 +62,7 @@ struct Explanation {
   // the hard entries, each with its multiplier; under --by-group, members of one group are adjacent.
   std::vector<Member> members;
   std::vector<Member> hard;
-  std::vector<std::string> groups;       // by_group: per unit of the subsystem its group ("" when alone)
+  std::vector<std::string> groups;       // by_group: per unit of the subsystem its group ("" for a single entry)
   certificate::Certificate certificate;  // feasible or infeasible_subsystem; empty when stopped
   check::Verdict verdict;                // the independent checker on `certificate`
   std::vector<OrderTried> orders;        // the orders tried; the first smallest one is kept
