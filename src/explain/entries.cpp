@@ -22,6 +22,7 @@ Member bound_member(const model::Column& column, int index, Limit limit) {
   m.hard = own.hard ? *own.hard : column.label.hard.value_or(false);
   m.group = own.group.empty() ? column.label.group : own.group;
   m.unit = own.unit.empty() ? column.label.unit : own.unit;
+  m.weight = own.weight ? *own.weight : column.label.weight.value_or(Rational(1));
   return m;
 }
 
@@ -34,6 +35,7 @@ Member row_member(const model::Row& row, int index, Limit limit) {
   m.hard = row.label.hard.value_or(false);
   m.group = row.label.group;
   m.unit = row.label.unit;
+  m.weight = row.label.weight.value_or(Rational(1));
   return m;
 }
 

@@ -104,7 +104,8 @@ std::vector<SingleChange> single_changes(const model::Model& model, const std::v
 }
 
 // The elastic LP: every soft side a.x >= L becomes a.x + s >= L (an upper side a.x - s <= U), every
-// soft bound likewise a row of its own, each s >= 0 costing 1 per unit; hard entries stay as given.
+// soft bound likewise a row of its own, each s >= 0 costing its weight per unit (the label's, else
+// 1); hard entries stay as given.
 LeastTotalChange least_total_change(const model::Model& model, run::Budget* budget) {
   detail::Entries entries(model);
   model::Model elastic = sub_problem(model);
@@ -116,14 +117,16 @@ LeastTotalChange least_total_change(const model::Model& model, run::Budget* budg
     for (std::size_t k = 0; k < rows.size(); ++k) matrix.push_back({rows[k], j, values[k]});
   }
   std::vector<int> relaxed;  // per elastic column, the entry it relaxes
+  LeastTotalChange out;
   for (int id = 0; id < entries.size(); ++id) {
     const Member& m = entries[id];
     if (m.hard) continue;
+    out.weighted = out.weighted || m.weight != 1;
     limit_of(elastic, m.entry, m.index).reset();
     int column = elastic.column_count();
     int row = elastic.row_count();
     elastic.columns.push_back({prefix + std::to_string(relaxed.size()), Rational(0), std::nullopt, false, {}, {}, {}});
-    elastic.objective.coefficients.push_back(1);
+    elastic.objective.coefficients.push_back(m.weight);
     bool lower = m.entry.limit == Limit::lower;
     model::Row side{prefix + "-side" + std::to_string(relaxed.size()), std::nullopt, std::nullopt, {}};
     (lower ? side.lower : side.upper) = m.value;
@@ -144,7 +147,6 @@ LeastTotalChange least_total_change(const model::Model& model, run::Budget* budg
   exact::SolveOptions options;
   options.budget = budget;
   exact::CertifiedSolution solved = exact::certified_solve(elastic, options);
-  LeastTotalChange out;
   out.proof = solved.certificate;
   out.verdict = solved.verdict;
   switch (solved.solution.outcome) {

@@ -13,8 +13,10 @@ namespace plumb::model {
 namespace {
 
 constexpr std::array<std::string_view, 6> header = {"name", "kind", "statement", "unit", "group", "hard"};
-// The optional columns after the six above: why a limit is written so (docs/labels.md).
-constexpr std::array<std::string_view, 3> decision_header = {"decision", "source", "owner"};
+// The optional columns after the six above: why a limit is written so (docs/labels.md), then what
+// relaxing it by one unit weighs in plumb explain's least total change.
+constexpr std::array<std::string_view, 4> decision_header = {"decision", "source", "owner", "weight"};
+constexpr std::size_t decision_columns = 3;
 constexpr std::string_view model_kind = "model";  // a line about the model as a whole
 
 std::string quoted(const std::string& text) {
@@ -42,8 +44,8 @@ void apply_model_decision(Model& model, const std::vector<CsvField>& f) {
   if (f.size() <= header.size())
     throw InputError(f[1].where, "the kind 'model' in a file without decision columns",
                      "the header name,kind,statement,unit,group,hard,decision,source,owner");
-  for (std::size_t k : {0, 2, 3, 4, 5})
-    if (!f[k].text.empty())
+  for (std::size_t k : {0, 2, 3, 4, 5, 9})
+    if (k < f.size() && !f[k].text.empty())
       throw InputError(f[k].where, "the " + std::string(header[k]) + " " + quoted(f[k].text) + " on a model line",
                        "an empty field: a model line fills only decision, source and owner");
   if (f[6].text.empty()) throw InputError(f[6].where, "an empty decision on a model line", "the decision's text");
@@ -57,12 +59,13 @@ void apply_labels_text(Model& model, std::string_view text, const std::string& f
   if (records.empty()) throw InputError({file, 1, 0}, "an empty file", "the header line name,kind,statement,unit,group,hard");
   const CsvRecord& first = records.front();
   const std::size_t width = first.fields.size();
-  bool header_ok = width == header.size() || width == header.size() + decision_header.size();
+  bool header_ok = width == header.size() || width == header.size() + decision_columns ||
+                   width == header.size() + decision_header.size();
   for (std::size_t k = 0; header_ok && k < width; ++k)
     header_ok = first.fields[k].text == (k < header.size() ? header[k] : decision_header[k - header.size()]);
   if (!header_ok)
     throw InputError(first.where, "a first line that is not the header",
-                     "name,kind,statement,unit,group,hard (and optionally ,decision,source,owner)");
+                     "name,kind,statement,unit,group,hard (and optionally ,decision,source,owner and then ,weight)");
   std::map<std::pair<std::string, std::string>, long> seen;  // (name, kind) -> line
   for (std::size_t r = 1; r < records.size(); ++r) {
     const CsvRecord& record = records[r];
@@ -92,6 +95,14 @@ void apply_labels_text(Model& model, std::string_view text, const std::string& f
       if (!f[6].text.empty()) label.decision = f[6].text;
       if (!f[7].text.empty()) label.source = f[7].text;
       if (!f[8].text.empty()) label.owner = f[8].text;
+    }
+    if (width == header.size() + decision_header.size() && !f[9].text.empty()) {
+      numeric::ParseFailure why;
+      auto weight = numeric::parse_decimal(f[9].text, &why);
+      if (!weight || *weight <= 0)
+        throw InputError(f[9].where, "the weight " + quoted(f[9].text),
+                         "a decimal above 0: what relaxing one unit of this limit weighs");
+      label.weight = *weight;
     }
   }
 }
@@ -132,22 +143,30 @@ void write_labels(const Model& model, std::ostream& out) {
   for (const Column& column : model.columns)
     with_decisions = with_decisions || column.label.recorded() || column.lower_label.recorded() ||
                      column.upper_label.recorded();
-  auto decision_fields = [&](const std::string& decision, const std::string& source, const std::string& owner) {
+  bool with_weights = model.objective.label.weight.has_value();
+  for (const Row& row : model.rows) with_weights = with_weights || row.label.weight;
+  for (const Column& column : model.columns)
+    with_weights = with_weights || column.label.weight || column.lower_label.weight || column.upper_label.weight;
+  with_decisions = with_decisions || with_weights;
+  auto decision_fields = [&](const std::string& decision, const std::string& source, const std::string& owner,
+                             const std::optional<Rational>& weight) {
     if (with_decisions) out << ',' << field(decision) << ',' << field(source) << ',' << field(owner);
+    if (with_weights) out << ',' << (weight ? numeric::to_decimal(*weight, 100000).text : "");
     out << '\n';
   };
   auto line = [&](const std::string& name, const char* kind, const Label& label) {
     if (label.empty()) return;
     out << field(name) << ',' << kind << ',' << field(label.statement) << ',' << field(label.unit) << ','
         << field(label.group) << ',' << (label.hard ? (*label.hard ? "yes" : "no") : "");
-    decision_fields(label.decision, label.source, label.owner);
+    decision_fields(label.decision, label.source, label.owner, label.weight);
   };
   out << "name,kind,statement,unit,group,hard";
   if (with_decisions) out << ",decision,source,owner";
+  if (with_weights) out << ",weight";
   out << '\n';
   for (const ModelDecision& decision : model.decisions) {
     out << ",model,,,,";
-    decision_fields(decision.decision, decision.source, decision.owner);
+    decision_fields(decision.decision, decision.source, decision.owner, std::nullopt);
   }
   line(model.objective.name, "row", model.objective.label);
   for (const Row& row : model.rows) line(row.name, "row", row.label);

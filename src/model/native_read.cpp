@@ -63,7 +63,7 @@ struct BoundClause {
 // Which label parts a statement has given, so each comes at most once.
 struct LabelParts {
   bool statement = false, unit = false, group = false, hard = false;
-  bool decision = false, source = false, owner = false;
+  bool decision = false, source = false, owner = false, weight = false;
 };
 
 class Reader {
@@ -294,7 +294,8 @@ class Reader {
 
   // ----- clauses -----
 
-  // "statement", [unit], group NAME, hard, soft: true when one was read.
+  // "statement", [unit], group NAME, hard, soft, weight NUMBER, decision/source/owner "text": true
+  // when one was read.
   bool label_clause(Label& label, LabelParts& parts) {
     const Token& token = peek();
     auto once = [&](bool& seen, const char* what) {
@@ -319,6 +320,12 @@ class Reader {
     } else if (at_word("hard") || at_word("soft")) {
       once(parts.hard, "'hard' or 'soft'");
       label.hard = take().text == "hard";
+    } else if (at_word("weight") && peek(1).kind == TokenKind::number) {
+      once(parts.weight, "weight");
+      take();
+      const Token& number = take();
+      if (*number.value <= 0) fail(number, "a weight above 0 (what relaxing one unit costs)");
+      label.weight = *number.value;
     } else if (at_word(decision_keyword) || at_word("source") || at_word("owner")) {
       // Keywords only here, where no name can stand, so models naming a variable 'source' still read.
       const std::string& word = take().text;

@@ -100,6 +100,7 @@ void add_label(std::vector<std::string>& pieces, const Label& label) {
                                      ? label.group
                                      : "\"" + escaped(label.group, '"') + "\""));
   if (label.hard) pieces.push_back(*label.hard ? "hard" : "soft");
+  if (label.weight) pieces.push_back("weight " + number_text(*label.weight));
   add_decision(pieces, label.decision, label.source, label.owner);
 }
 

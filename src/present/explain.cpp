@@ -194,7 +194,10 @@ void write_ways_out(std::ostream& out, const explain::WaysOut& ways) {
   out << "\nLeast total change";
   switch (least.result) {
     case explain::LeastTotalChange::Result::found:
-      out << " (every soft side and bound may move; each weighs 1 per unit of its own): "
+      out << " (every soft side and bound may move; "
+          << (least.weighted ? "each weighs its label's weight per unit of its own, 1 where none is given"
+                             : "each weighs 1 per unit of its own, as no label gives a weight")
+          << "): "
           << numeric::to_display(least.total, 8) << " in all\n";
       for (const explain::Move& move : least.moves)
         out << "  - " << statement_of(move.member) << ": " << move_words(move.member, move.to, move.by) << "\n";
@@ -271,7 +274,8 @@ nlohmann::ordered_json ways_out_json(const explain::WaysOut& ways) {
   least["result"] = l.result == explain::LeastTotalChange::Result::found           ? "found"
                     : l.result == explain::LeastTotalChange::Result::hard_conflict ? "hard_conflict"
                                                                                     : "stopped";
-  least["weights"] = "1 per unit of each side or bound";
+  least["weights"] = l.weighted ? "the labels' weight per unit of each side or bound, 1 where none is given"
+                               : "1 per unit of each side or bound (no label gives a weight)";
   if (l.result == explain::LeastTotalChange::Result::found) {
     put_number(least["total"], l.total);
     nlohmann::ordered_json moves = nlohmann::ordered_json::array();
@@ -513,7 +517,8 @@ ConflictSection conflict_from_explanation(const model::Model& model, const expla
       else if (c.result == explain::SingleChange::Result::not_enough)
         conflict.ways_out.push_back(statement_of(c.member) + " alone: not enough, another conflict remains");
     if (ways->least.result == explain::LeastTotalChange::Result::found) {
-      std::string least = "The least total change (each side and bound weighed 1 per unit of its own, " +
+      std::string least = std::string("The least total change (each side and bound weighed ") +
+                          (ways->least.weighted ? "by its label's weight, else 1," : "1") + " per unit of its own, " +
                           numeric::to_display(ways->least.total, 8) + " in all): ";
       for (std::size_t k = 0; k < ways->least.moves.size(); ++k) {
         const explain::Move& move = ways->least.moves[k];

@@ -81,6 +81,23 @@ TEST(WaysOut, TightBlendValuesAreExactlyTheBoundary) {
   }
 }
 
+// A weight of 10 per barrel on the batch (its label) makes moving it dearer than the reformate
+// nomination: per unit of the conflict's 112000 (whole-number weights 243, 166 and 138 in the
+// derivation) the batch costs 10/243, the reformate 1/166, the alkylate 1/138; so the reformate
+// alone moves, by 112000/166 = 56000/83 bbl.
+TEST(WaysOut, LabelWeightsSteerTheLeastTotalChange) {
+  model::Model m = model::read_model(std::string(PLUMB_CORPUS_DIR) + "/summer-blend-tight.plumb");
+  m.rows[*m.find_row("batch")].label.weight = Rational(10);
+  LeastTotalChange least = least_total_change(m);
+  ASSERT_EQ(least.result, LeastTotalChange::Result::found);
+  EXPECT_TRUE(least.weighted);
+  EXPECT_TRUE(least.verdict.valid) << least.verdict.failure;
+  ASSERT_EQ(least.moves.size(), 1u);
+  EXPECT_EQ(least.moves[0].member.entry.name, "reformate");
+  EXPECT_EQ(least.moves[0].by, q(56000, 83));
+  EXPECT_EQ(least.total, q(56000, 83));
+}
+
 // Invented: two deliveries of at least 5 t each through one gate of at most 8 t, and a second,
 // separate conflict y >= 3 against y <= 1.  Moving the gate alone cannot fix the second conflict.
 TEST(WaysOut, OneChangeAloneIsNotEnoughWhenAnotherConflictRemains) {

@@ -7,6 +7,7 @@
 
 #include <filesystem>
 #include <fstream>
+#include <sstream>
 
 namespace {
 
@@ -52,6 +53,33 @@ TEST(Labels, EveryKindAndField) {
   EXPECT_EQ(m.columns[0].upper_label, (plumb::model::Label{"the truck holds four", "t", "equipment", false}));
   EXPECT_EQ(m.columns[1].label.statement, "a name with a space");
   EXPECT_EQ(m.objective.label.statement, "what it costs");  // the objective is a row in MPS
+}
+
+// The optional weight column after the decision columns: what relaxing one unit weighs in
+// plumb explain's least total change; it survives the writer.
+TEST(Labels, WeightColumn) {
+  Model m = small_model();
+  plumb::model::apply_labels_text(m,
+                                  "name,kind,statement,unit,group,hard,decision,source,owner,weight\n"
+                                  "cap,row,at most ten,t,,,,,,2.5\n"
+                                  "x,upper,,,,,,,,1e-3\n"
+                                  "y z,column,,,,,,,,\n",
+                                  "small.labels.csv");
+  EXPECT_EQ(m.rows[0].label.weight, Rational(5, 2));
+  EXPECT_EQ(m.columns[0].upper_label.weight, Rational(1, 1000));
+  EXPECT_FALSE(m.columns[1].label.weight);
+  std::ostringstream written;
+  plumb::model::write_labels(m, written);
+  Model back = small_model();
+  plumb::model::apply_labels_text(back, written.str(), "back.labels.csv");
+  EXPECT_EQ(back.rows[0].label, m.rows[0].label) << written.str();
+  EXPECT_EQ(back.columns[0].upper_label, m.columns[0].upper_label) << written.str();
+  for (const char* weight : {"0", "-1", "heavy", "1/2"})
+    EXPECT_THROW(plumb::model::apply_labels_text(
+                     m, std::string("name,kind,statement,unit,group,hard,decision,source,owner,weight\ncap,row,,,,,,,,") + weight + "\n",
+                     "small.labels.csv"),
+                 InputError)
+        << weight;
 }
 
 // RFC 4180: quoted fields hold commas, doubled quotes and line breaks; CRLF line ends.

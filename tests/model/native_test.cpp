@@ -248,6 +248,8 @@ TEST(NativeFormatErrors, InlineMistakes) {
       {"variable x\nconstraint c: x <= 1e999999\n", 2, 20, "an exponent of at most"},
       {"variable x\nconstraint c: x @ 1\n", 2, 17, "one of : <= >= = + - * / ( ) #"},
       {"variable x \"one\" \"two\"\n", 1, 18, "one statement here"},
+      {"variable x weight 0\n", 1, 19, "a weight above 0"},
+      {"variable x weight 1 weight 2\n", 1, 21, "one weight here"},
       {"variable x [a] [b]\n", 1, 16, "one unit here"},
       {"variable x hard soft\n", 1, 17, "one 'hard' or 'soft' here"},
       {"variable x integer integer\n", 1, 20, "'integer' at most once"},
@@ -351,11 +353,12 @@ TEST(NativeRoundTrip, EveryConstructSurvivesTheWriter) {
       "bound v at most 3 \"three at most\" soft\n"
       "maximise 'the objective' \"line\\nbreak\": 1/7 x - 'free' + 12.5\n"
       "constraint 'c 1': 10 <= x + 'free' <= 20\n"
-      "constraint c2 [t] group \"g, with comma\": x >= -5\n"
+      "constraint c2 [t] group \"g, with comma\" weight 2.5: x >= -5\n"
       "constraint c3: '7up' = 1/3\n"
       "constraint c4: x <= infinity\n"
       "constraint c5: 0 <= 4\n"
       "constraint c6: -2 'a]b' + 1e-40 w - 123456789.5 v <= -1e12\n");
+  EXPECT_EQ(m.rows[*m.find_row("c2")].label.weight, Rational(5, 2));
   Model back = round_trip(m);
   EXPECT_TRUE(back.same_content(m)) << written(m);
   EXPECT_EQ(written(back), written(m));

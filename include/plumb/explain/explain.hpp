@@ -47,6 +47,7 @@ struct Member {
   std::string unit;                     // likewise its unit
   const model::Label* label = nullptr;  // the label that speaks for it (a bound's own, else the column's)
   Rational multiplier;                  // in the certificate's Farkas combination; 0 when not used
+  Rational weight = 1;                  // per unit relaxed, in the least total change: its label's, else 1
 };
 
 // One member order tried, with what it found.

@@ -36,12 +36,14 @@ struct Move {
   Rational by;  // > 0, in the side's or bound's own unit
 };
 
-// The smallest total relaxation, summed over every soft side and bound, each weighted 1 per unit
-// of its own side or bound, that makes the model feasible: an elastic LP solved exactly.
+// The smallest total relaxation, summed over every soft side and bound, each weighted per unit of
+// its own side or bound by its label's weight (1 when it has none), that makes the model
+// feasible: an elastic LP solved exactly.
 struct LeastTotalChange {
   enum class Result { found, hard_conflict, stopped };
   Result result = Result::stopped;
   Rational total;           // found: the weighted sum of the moves
+  bool weighted = false;    // some soft entry's label gives a weight other than 1
   std::vector<Move> moves;  // found: the sides and bounds that move, in model order
   certificate::Certificate proof;  // found: optimal certificate of the elastic LP
   check::Verdict verdict;

@@ -28,7 +28,9 @@ struct Label {
   std::string decision{};       // what was decided, assumed or simplified, e.g. "octane blends linearly"
   std::string source{};       // where a limit's value comes from: document and clause, contract, measurement
   std::string owner{};        // the role that answers for it, e.g. "blending engineer"
-  bool empty() const { return statement.empty() && unit.empty() && group.empty() && !hard && !recorded(); }
+  // What relaxing it by one unit costs in plumb explain's least total change (> 0); 1 when empty.
+  std::optional<Rational> weight{};
+  bool empty() const { return statement.empty() && unit.empty() && group.empty() && !hard && !recorded() && !weight; }
   // True when a decision, source or owner is recorded.
   bool recorded() const { return !decision.empty() || !source.empty() || !owner.empty(); }
   bool operator==(const Label&) const = default;
