@@ -250,8 +250,9 @@ Resolved resolve(const Model& m, const certificate::Entry& e, const std::string&
   const Side& side = row ? (lower ? m.rows[*index].lower : m.rows[*index].upper)
                          : (lower ? m.columns[*index].lower : m.columns[*index].upper);
   Resolved r{row, *index, 0, 2 * static_cast<std::size_t>(row ? *index : m.row_count() + *index) + !lower};
-  if (!side) throw Failure{part + ": " + entry_text(m, r, e.limit) + " is infinite, so " +
-                           (part == "farkas" ? "a multiplier on it proves nothing" : "it constrains nothing")};
+  if (!side)
+    throw Failure{part + ": " + entry_text(m, r, e.limit) + " is infinite, so " +
+                  (part == "farkas" ? "a multiplier on it proves nothing" : "it constrains nothing")};
   r.limit = *side;
   return r;
 }
@@ -329,11 +330,13 @@ EntryLabel label_of(const Model& m, const Resolved& r, certificate::Limit limit)
 Verdict verify_subsystem(const Model& m, const Certificate& c) {
   std::vector<bool> in_subsystem(static_cast<std::size_t>(2 * (m.row_count() + m.column_count())), false);
   std::vector<Resolved> members, hard;
-  for (auto [list, out, part] : {std::tuple{&c.members, &members, "members"}, std::tuple{&c.hard, &hard, "hard"}})
+  for (auto [list, out, part] :
+       {std::tuple{&c.members, &members, "members"}, std::tuple{&c.hard, &hard, "hard"}})
     for (const certificate::Entry& e : *list) {
       Resolved r = resolve(m, e, part);
       if (in_subsystem[r.slot])
-        throw Failure{std::string(part) + ": " + entry_text(m, r, e.limit) + " is listed twice in the subsystem"};
+        throw Failure{std::string(part) + ": " + entry_text(m, r, e.limit) +
+                      " is listed twice in the subsystem"};
       in_subsystem[r.slot] = true;
       if (out == &members && label_of(m, r, e.limit).hard)
         throw Failure{"members: " + entry_text(m, r, e.limit) +
@@ -351,15 +354,17 @@ Verdict verify_subsystem(const Model& m, const Certificate& c) {
         throw Failure{at + " drops member " + std::to_string(k) + ", and there are " +
                       std::to_string(members.size())};
       if (dropped_by[k] >= 0)
-        throw Failure{at + " drops member " + std::to_string(k) + ", which witness " + std::to_string(dropped_by[k]) +
-                      " drops already"};
+        throw Failure{at + " drops member " + std::to_string(k) + ", which witness " +
+                      std::to_string(dropped_by[k]) + " drops already"};
       dropped_by[k] = static_cast<int>(w);
     }
     std::string group = label_of(m, members[witness.drop[0]], c.members[witness.drop[0]].limit).group;
     for (std::size_t k : witness.drop)
-      if (witness.drop.size() > 1 && (group.empty() || label_of(m, members[k], c.members[k].limit).group != group))
+      if (witness.drop.size() > 1 &&
+          (group.empty() || label_of(m, members[k], c.members[k].limit).group != group))
         throw Failure{at + " drops several members that do not share one group"};
-    std::vector<Rational> x = dense(m, witness.x, Kind::column, ("witnesses[" + std::to_string(w) + "].x").c_str());
+    std::vector<Rational> x =
+        dense(m, witness.x, Kind::column, ("witnesses[" + std::to_string(w) + "].x").c_str());
     auto require_met = [&](const Resolved& r, const certificate::Entry& e) {
       Rational value = r.row ? Rational(0) : x[static_cast<std::size_t>(r.index)];
       if (r.row) {
@@ -371,7 +376,8 @@ Verdict verify_subsystem(const Model& m, const Certificate& c) {
       bool met = e.limit == certificate::Limit::lower ? value >= r.limit : value <= r.limit;
       if (!met)
         throw Failure{at + " breaks " + entry_text(m, r, e.limit) + ": " + (r.row ? "a.x" : "x") + " = " +
-                      amount(value) + " against " + amount(r.limit) + ", so it does not show that member needed"};
+                      amount(value) + " against " + amount(r.limit) +
+                      ", so it does not show that member needed"};
     };
     for (std::size_t k = 0; k < members.size(); ++k)
       if (std::find(witness.drop.begin(), witness.drop.end(), k) == witness.drop.end())
@@ -429,7 +435,8 @@ Verdict verify(const model::Model& m, const certificate::Certificate& c) {
         return c.farkas.empty() ? verify_infeasible(m, c) : verify_explicit_farkas(m, c);
       case Status::unbounded: return verify_unbounded(m, c, objective);
       case Status::feasible: return verify_feasible(m, c, objective);
-      case Status::infeasible_subsystem: return verify_subsystem(m, c);
+      case Status::infeasible_subsystem:
+        return verify_subsystem(m, c);
     }
     return {false, "", "status: not one the checker knows"};
   } catch (const Failure& failure) {

@@ -39,8 +39,9 @@ void add_check(CLI::App& app, Action& action) {
   add_model_options(*command, options->model);
   command->add_option("certificate", options->certificate, "Certificate JSON file (docs/certificates.md)")->required();
   command->add_flag("--json", options->json, "Print the verdict as JSON");
-  command->add_option("--expect", options->expect,
-                      "Demand this status: a valid certificate of another status exits 5")
+  command
+      ->add_option("--expect", options->expect,
+                   "Demand this status: a valid certificate of another status exits 5")
       ->check(CLI::IsMember({"optimal", "infeasible", "unbounded", "feasible", "infeasible_subsystem"}));
   command->callback([&action, options] { action = [options] { return run_check(*options); }; });
 }

@@ -1,8 +1,8 @@
 // plumb explain: why a model is infeasible, as a proven irreducible infeasible subsystem.
 #include "plumb/explain/explain.hpp"
-#include "plumb/explain/ways_out.hpp"
 #include "command.hpp"
 #include "plumb/certificate/certificate.hpp"
+#include "plumb/explain/ways_out.hpp"
 #include "plumb/present/explain.hpp"
 #include "plumb/present/output.hpp"
 #include "plumb/run/budget.hpp"
@@ -52,19 +52,23 @@ int run_explain(const ExplainCommandOptions& options) {
   if (live_progress) search.progress = progress_printer<explain::Progress>(present::explain_progress_line);
   explain::Explanation result = explain::explain(model, search);
   std::optional<explain::WaysOut> ways;
-  if (result.outcome == explain::Outcome::infeasible_subsystem && result.verdict.valid && options.ways_out > 0) {
-    if (live_progress) search.progress({"ways out", static_cast<long>(result.members.size()), result.sub_solves, result.seconds});
+  if (result.outcome == explain::Outcome::infeasible_subsystem && result.verdict.valid &&
+      options.ways_out > 0) {
+    if (live_progress)
+      search.progress(
+          {"ways out", static_cast<long>(result.members.size()), result.sub_solves, result.seconds});
     ways = explain::find_ways_out(model, result, &budget, options.ways_out);
   }
   if (live_progress) std::fprintf(stderr, "\r\033[K");
   present::RunFigures figures{std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count(),
-                             run::peak_resident_mib()};
+                              run::peak_resident_mib()};
 
   if (result.outcome == explain::Outcome::stopped) {
     std::cerr << "plumb: stopped (" << run::describe(result.stop_reason) << ") after " << result.sub_solves
               << " sub-solves, during " << result.stopped_during
               << "; nothing is certified and no certificate was written\n";
-    if (options.json) std::cout << present::explain_json(model, result, ways ? &*ways : nullptr, figures).dump(2) << "\n";
+    if (options.json)
+      std::cout << present::explain_json(model, result, ways ? &*ways : nullptr, figures).dump(2) << "\n";
     return exit_stopped;
   }
   bool all_valid = result.verdict.valid;
@@ -106,14 +110,17 @@ void add_explain(CLI::App& app, Action& action) {
       ->check(CLI::PositiveNumber);
   command->add_option("--memory-limit", options->memory_limit, "Stop above MiB of resident memory (exit 3)")
       ->check(CLI::PositiveNumber);
-  command->add_option("--within", options->within,
-                      "With groups: open this group to its single requirements, the other groups staying whole "
-                      "(implies --by-group)");
-  command->add_flag("--all", options->all,
-                    "Keep going after the first conflict: set one of its requirements aside and search again, until "
-                    "the rest is feasible (each conflict proven; certificates FILE-2, FILE-3, ... beside --certificate)");
+  command->add_option(
+      "--within", options->within,
+      "With groups: open this group to its single requirements, the other groups staying whole "
+      "(implies --by-group)");
+  command->add_flag(
+      "--all", options->all,
+      "Keep going after the first conflict: set one of its requirements aside and search again, until "
+      "the rest is feasible (each conflict proven; certificates FILE-2, FILE-3, ... beside --certificate)");
   command->add_option("--ways-out", options->ways_out,
-                      "Work out the least change of each of the first N members alone, and the least total change (default 20; 0 skips the ways out)");
+                      "Work out the least change of each of the first N members alone, and the least total "
+                      "change (default 20; 0 skips the ways out)");
   command->add_flag("--quiet", options->quiet,
                     "No live progress line on stderr (it is shown only when stderr is a terminal)");
   command->callback([&action, options] { action = [options] { return run_explain(*options); }; });

@@ -7,9 +7,9 @@
 #include "plumb/exact/solve.hpp"
 #include "plumb/explain/explain.hpp"
 #include "plumb/explain/ways_out.hpp"
-#include "plumb/present/explain.hpp"
 #include "plumb/health/health.hpp"
 #include "plumb/model/read.hpp"
+#include "plumb/present/explain.hpp"
 #include "plumb/run/budget.hpp"
 
 #include <chrono>
@@ -90,7 +90,8 @@ void write_text_file(const std::string& path, const std::string& text, const cha
 
 // An infeasible model's conflict from plumb explain (a proven IIS, its derivation and ways out);
 // the solve's own Farkas multipliers when explain stops or finds nothing to say.
-std::optional<present::ConflictSection> conflict_of(const model::Model& model, const exact::CertifiedSolution& result,
+std::optional<present::ConflictSection> conflict_of(const model::Model& model,
+                                                    const exact::CertifiedSolution& result,
                                                     run::Budget& budget) {
   if (result.solution.outcome != exact::Outcome::infeasible) return std::nullopt;
   explain::Options search;

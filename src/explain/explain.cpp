@@ -297,7 +297,8 @@ void find_subsystem(const model::Model& model, Prober& prober, const Entries& en
   for (const Order& order : orders) {
     std::vector<int> candidates = in_order(start_units, units, entries, order.bounds_first);
     activate(prober, entries, units, candidates);
-    Found found = deletion_filter(prober, units, candidates, first.farkas, std::string("deletion, ") + order.name);
+    Found found =
+        deletion_filter(prober, units, candidates, first.farkas, std::string("deletion, ") + order.name);
     out.orders.push_back({order.name, found.units.size(), found.sub_solves});
     if (!best || found.units.size() < best->units.size()) best = std::move(found);
     // No order changes the answer when the hard entries alone conflict, nor when the first

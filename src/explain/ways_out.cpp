@@ -125,7 +125,8 @@ LeastTotalChange least_total_change(const model::Model& model, run::Budget* budg
     limit_of(elastic, m.entry, m.index).reset();
     int column = elastic.column_count();
     int row = elastic.row_count();
-    elastic.columns.push_back({prefix + std::to_string(relaxed.size()), Rational(0), std::nullopt, false, {}, {}, {}});
+    elastic.columns.push_back(
+        {prefix + std::to_string(relaxed.size()), Rational(0), std::nullopt, false, {}, {}, {}});
     elastic.objective.coefficients.push_back(m.weight);
     bool lower = m.entry.limit == Limit::lower;
     model::Row side{prefix + "-side" + std::to_string(relaxed.size()), std::nullopt, std::nullopt, {}};
@@ -135,13 +136,15 @@ LeastTotalChange least_total_change(const model::Model& model, run::Budget* budg
     if (m.entry.kind == EntryKind::row) {
       auto columns = model.matrix.row_columns(m.index);
       auto positions = model.matrix.row_positions(m.index);
-      for (std::size_t k = 0; k < columns.size(); ++k) matrix.push_back({row, columns[k], model.matrix.value(positions[k])});
+      for (std::size_t k = 0; k < columns.size(); ++k)
+        matrix.push_back({row, columns[k], model.matrix.value(positions[k])});
     } else {
       matrix.push_back({row, m.index, Rational(1)});
     }
     relaxed.push_back(id);
   }
-  elastic.matrix = model::Matrix::from_entries(elastic.row_count(), elastic.column_count(), std::move(matrix));
+  elastic.matrix =
+      model::Matrix::from_entries(elastic.row_count(), elastic.column_count(), std::move(matrix));
   elastic.index_names();
 
   exact::SolveOptions options;
@@ -157,7 +160,8 @@ LeastTotalChange least_total_change(const model::Model& model, run::Budget* budg
         const Rational& s = solved.solution.x[static_cast<std::size_t>(model.column_count()) + k];
         if (s == 0) continue;
         const Member& m = entries[relaxed[k]];
-        out.moves.push_back({m, m.entry.limit == Limit::lower ? Rational(m.value - s) : Rational(m.value + s), s});
+        out.moves.push_back(
+            {m, m.entry.limit == Limit::lower ? Rational(m.value - s) : Rational(m.value + s), s});
       }
       break;
     case exact::Outcome::infeasible:
@@ -176,7 +180,8 @@ WaysOut find_ways_out(const model::Model& model, const Explanation& explanation,
                       std::size_t max_single) {
   WaysOut ways;
   std::size_t tried = std::min(max_single, explanation.members.size());
-  std::vector<Member> members(explanation.members.begin(), explanation.members.begin() + static_cast<long>(tried));
+  std::vector<Member> members(explanation.members.begin(),
+                              explanation.members.begin() + static_cast<long>(tried));
   ways.single = single_changes(model, members, budget);
   ways.not_tried = explanation.members.size() - tried;
   ways.least = least_total_change(model, budget);

@@ -64,8 +64,9 @@ void apply_labels_text(Model& model, std::string_view text, const std::string& f
   for (std::size_t k = 0; header_ok && k < width; ++k)
     header_ok = first.fields[k].text == (k < header.size() ? header[k] : decision_header[k - header.size()]);
   if (!header_ok)
-    throw InputError(first.where, "a first line that is not the header",
-                     "name,kind,statement,unit,group,hard (and optionally ,decision,source,owner and then ,weight)");
+    throw InputError(
+        first.where, "a first line that is not the header",
+        "name,kind,statement,unit,group,hard (and optionally ,decision,source,owner and then ,weight)");
   std::map<std::pair<std::string, std::string>, long> seen;  // (name, kind) -> line
   for (std::size_t r = 1; r < records.size(); ++r) {
     const CsvRecord& record = records[r];
@@ -146,7 +147,8 @@ void write_labels(const Model& model, std::ostream& out) {
   bool with_weights = model.objective.label.weight.has_value();
   for (const Row& row : model.rows) with_weights = with_weights || row.label.weight;
   for (const Column& column : model.columns)
-    with_weights = with_weights || column.label.weight || column.lower_label.weight || column.upper_label.weight;
+    with_weights =
+        with_weights || column.label.weight || column.lower_label.weight || column.upper_label.weight;
   with_decisions = with_decisions || with_weights;
   auto decision_fields = [&](const std::string& decision, const std::string& source, const std::string& owner,
                              const std::optional<Rational>& weight) {

@@ -94,7 +94,8 @@ std::vector<Rational> small_weights(const std::vector<Rational>& multipliers) {
   numeric::Integer common = 1;
   for (const Rational& m : multipliers) common = lcm(common, numeric::Integer(denominator(m)));
   numeric::Integer divisor = 0;
-  for (const Rational& m : multipliers) divisor = gcd(divisor, numeric::Integer(numerator(m) * (common / denominator(m))));
+  for (const Rational& m : multipliers)
+    divisor = gcd(divisor, numeric::Integer(numerator(m) * (common / denominator(m))));
   if (divisor == 0) return multipliers;
   std::vector<Rational> scaled;
   for (const Rational& m : multipliers) {
@@ -112,8 +113,8 @@ struct Derivation {
     Rational weight;
     Rational contribution;  // weight times the limit, signed as it enters the total
   };
-  std::vector<Term> terms;  // the largest contributions first
-  Rational total;           // > 0
+  std::vector<Term> terms;             // the largest contributions first
+  Rational total;                      // > 0
   std::vector<std::string> cancelled;  // the columns that drop out
 };
 
@@ -137,9 +138,11 @@ Derivation derivation_of(const model::Model& model, const explain::Explanation& 
     for (int j : model.matrix.row_columns(m->index)) touched[static_cast<std::size_t>(j)] = true;
   }
   for (int j = 0; j < model.column_count(); ++j)
-    if (touched[static_cast<std::size_t>(j)]) d.cancelled.push_back(model.columns[static_cast<std::size_t>(j)].name);
-  std::stable_sort(d.terms.begin(), d.terms.end(),
-                   [](const Derivation::Term& a, const Derivation::Term& b) { return abs(a.contribution) > abs(b.contribution); });
+    if (touched[static_cast<std::size_t>(j)])
+      d.cancelled.push_back(model.columns[static_cast<std::size_t>(j)].name);
+  std::stable_sort(d.terms.begin(), d.terms.end(), [](const Derivation::Term& a, const Derivation::Term& b) {
+    return abs(a.contribution) > abs(b.contribution);
+  });
   return d;
 }
 
@@ -179,11 +182,15 @@ void write_ways_out(std::ostream& out, const explain::WaysOut& ways) {
   for (const explain::SingleChange& c : ways.single) {
     out << "  " << ++k << ". " << statement_of(c.member) << ":\n     ";
     switch (c.result) {
-      case explain::SingleChange::Result::moves: out << move_words(c.member, c.to, c.by); break;
+      case explain::SingleChange::Result::moves:
+        out << move_words(c.member, c.to, c.by);
+        break;
       case explain::SingleChange::Result::not_enough:
         out << "changing this alone is not enough: another conflict remains";
         break;
-      case explain::SingleChange::Result::stopped: out << "not worked out: a limit was reached"; break;
+      case explain::SingleChange::Result::stopped:
+        out << "not worked out: a limit was reached";
+        break;
     }
     out << "\n";
   }
@@ -197,15 +204,17 @@ void write_ways_out(std::ostream& out, const explain::WaysOut& ways) {
       out << " (every soft side and bound may move; "
           << (least.weighted ? "each weighs its label's weight per unit of its own, 1 where none is given"
                              : "each weighs 1 per unit of its own, as no label gives a weight")
-          << "): "
-          << numeric::to_display(least.total, 8) << " in all\n";
+          << "): " << numeric::to_display(least.total, 8) << " in all\n";
       for (const explain::Move& move : least.moves)
-        out << "  - " << statement_of(move.member) << ": " << move_words(move.member, move.to, move.by) << "\n";
+        out << "  - " << statement_of(move.member) << ": " << move_words(move.member, move.to, move.by)
+            << "\n";
       break;
     case explain::LeastTotalChange::Result::hard_conflict:
       out << ": none; the hard requirements conflict whatever the soft ones do\n";
       break;
-    case explain::LeastTotalChange::Result::stopped: out << ": not worked out, a limit was reached\n"; break;
+    case explain::LeastTotalChange::Result::stopped:
+      out << ": not worked out, a limit was reached\n";
+      break;
   }
 }
 
@@ -260,7 +269,7 @@ nlohmann::ordered_json ways_out_json(const explain::WaysOut& ways) {
     nlohmann::ordered_json item = move_json(c.member, c.to, c.by);
     const char* result = c.result == explain::SingleChange::Result::moves        ? "moves"
                          : c.result == explain::SingleChange::Result::not_enough ? "not_enough"
-                                                                                  : "stopped";
+                                                                                 : "stopped";
     if (c.result != explain::SingleChange::Result::moves) {
       item.erase("to");
       item.erase("by");
@@ -273,9 +282,9 @@ nlohmann::ordered_json ways_out_json(const explain::WaysOut& ways) {
   const explain::LeastTotalChange& l = ways.least;
   least["result"] = l.result == explain::LeastTotalChange::Result::found           ? "found"
                     : l.result == explain::LeastTotalChange::Result::hard_conflict ? "hard_conflict"
-                                                                                    : "stopped";
+                                                                                   : "stopped";
   least["weights"] = l.weighted ? "the labels' weight per unit of each side or bound, 1 where none is given"
-                               : "1 per unit of each side or bound (no label gives a weight)";
+                                : "1 per unit of each side or bound (no label gives a weight)";
   if (l.result == explain::LeastTotalChange::Result::found) {
     put_number(least["total"], l.total);
     nlohmann::ordered_json moves = nlohmann::ordered_json::array();
@@ -297,7 +306,8 @@ void write_further(std::ostream& out, const model::Model& model, const explain::
   std::size_t count = 1 + result.further.size();
   for (std::size_t k = 0; k < result.further.size(); ++k) {
     const explain::Explanation& more = result.further[k];
-    out << "\nConflict " << k + 2 << " of " << count << " (found with the requirements set aside below left out):\n";
+    out << "\nConflict " << k + 2 << " of " << count
+        << " (found with the requirements set aside below left out):\n";
     write_members(out, model, all_of(more.members), true);
     auto against = used(more.hard);
     if (!against.empty()) {
@@ -307,10 +317,11 @@ void write_further(std::ostream& out, const model::Model& model, const explain::
     write_derivation(out, model, more);
     out << "  checked: " << more.verdict.proven << "\n";
   }
-  out << "\n" << (result.stop_reason == run::StopReason::none
-                      ? "All " + std::to_string(count) + " conflicts found (--all). "
-                      : "The search for further conflicts stopped (" + run::describe(result.stop_reason) +
-                            "): these " + std::to_string(count) + " are the ones found so far. ")
+  out << "\n"
+      << (result.stop_reason == run::StopReason::none
+              ? "All " + std::to_string(count) + " conflicts found (--all). "
+              : "The search for further conflicts stopped (" + run::describe(result.stop_reason) +
+                    "): these " + std::to_string(count) + " are the ones found so far. ")
       << "Relaxing these together removes every one of them\n(a heuristic cover: one requirement set aside "
          "per conflict, not the smallest such set):\n";
   write_members(out, model, all_of(result.set_aside), false);
@@ -323,7 +334,8 @@ std::string group_sentence(const explain::Explanation& result) {
   std::vector<std::string> units;
   for (std::size_t k = 0; k < result.groups.size() && k < result.certificate.witnesses.size(); ++k)
     units.push_back(result.groups[k].empty()
-                        ? "\"" + statement_of(result.members[result.certificate.witnesses[k].drop.front()]) + "\""
+                        ? "\"" + statement_of(result.members[result.certificate.witnesses[k].drop.front()]) +
+                              "\""
                         : "the " + result.groups[k] + " requirements");
   std::vector<std::string> hard_groups;
   for (const explain::Member* m : used(result.hard))
@@ -345,7 +357,8 @@ std::string group_sentence(const explain::Explanation& result) {
 }  // namespace
 
 void write_explain_text(const model::Model& model, const explain::Explanation& result,
-                        const explain::WaysOut* ways, const std::string& certificate_path, std::ostream& out) {
+                        const explain::WaysOut* ways, const std::string& certificate_path,
+                        std::ostream& out) {
   out << "model      " << model.source.path << "\n";
   out << "           sha256 " << model.source.sha256.substr(0, 16) << "...  " << model.row_count()
       << " rows, " << model.column_count() << " columns, " << model.matrix.nonzeros() << " non-zeros\n";
@@ -370,8 +383,9 @@ void write_explain_text(const model::Model& model, const explain::Explanation& r
                                           : std::to_string(result.groups.size()) + " requirements")
             << " taken group by group (" << detail::count_of(rows, "row side", "row sides") << ", "
             << detail::count_of(result.members.size() - rows, "bound", "bounds") << ") "
-            << (result.groups.size() == 1 ? "cannot hold with the hard ones; without it the rest can"
-                                          : "cannot all hold together with the hard ones; drop any one and the rest can hold")
+            << (result.groups.size() == 1
+                    ? "cannot hold with the hard ones; without it the rest can"
+                    : "cannot all hold together with the hard ones; drop any one and the rest can hold")
             << "\n\n";
       if (!result.groups.empty()) out << group_sentence(result) << "\n\n";
       out << "These requirements cannot all hold together:\n";
@@ -440,13 +454,15 @@ nlohmann::ordered_json explain_json(const model::Model& model, const explain::Ex
   out["members"] = std::move(members);
   out["groups"] = result.groups;
   out["hard"] = std::move(hard);
-  if (result.outcome == explain::Outcome::infeasible_subsystem || result.outcome == explain::Outcome::inconsistent)
+  if (result.outcome == explain::Outcome::infeasible_subsystem ||
+      result.outcome == explain::Outcome::inconsistent)
     out["derivation"] = derivation_json(model, result);
   if (ways) out["ways_out"] = ways_out_json(*ways);
   if (!result.set_aside.empty()) {
     nlohmann::ordered_json further = nlohmann::ordered_json::array(), aside = nlohmann::ordered_json::array();
     for (const explain::Explanation& more : result.further) {
-      nlohmann::ordered_json conflict, members = nlohmann::ordered_json::array(), hard = nlohmann::ordered_json::array();
+      nlohmann::ordered_json conflict, members = nlohmann::ordered_json::array(),
+                                       hard = nlohmann::ordered_json::array();
       for (const auto& m : more.members) members.push_back(member_json(model, m));
       for (const explain::Member* m : used(more.hard)) hard.push_back(member_json(model, *m));
       conflict["members"] = std::move(members);
@@ -482,21 +498,23 @@ nlohmann::ordered_json explain_json(const model::Model& model, const explain::Ex
 ConflictSection conflict_from_explanation(const model::Model& model, const explain::Explanation& result,
                                           const explain::WaysOut* ways) {
   ConflictSection conflict;
-  conflict.source = result.outcome == explain::Outcome::inconsistent
-                        ? "plumb explain: the hard requirements alone conflict (the model itself is inconsistent)"
-                        : "plumb explain: an irreducible infeasible subsystem, proven (drop any one requirement "
-                          "and the rest can hold)";
+  conflict.source =
+      result.outcome == explain::Outcome::inconsistent
+          ? "plumb explain: the hard requirements alone conflict (the model itself is inconsistent)"
+          : "plumb explain: an irreducible infeasible subsystem, proven (drop any one requirement "
+            "and the rest can hold)";
   // The derivation's whole-number weights, so the table and the derivation agree.
   Derivation d = derivation_of(model, result);
   for (const Derivation::Term& t : d.terms) {
     const explain::Member* m = t.member;
-    ConflictMember member{m->entry.name, statement_of(*m) + (m->hard ? " (hard)" : ""), form(model, *m),
-                          t.weight, {}};
+    ConflictMember member{
+        m->entry.name, statement_of(*m) + (m->hard ? " (hard)" : ""), form(model, *m), t.weight, {}};
     if (is_row(*m)) {
       auto columns = model.matrix.row_columns(m->index);
       auto positions = model.matrix.row_positions(m->index);
       for (std::size_t k = 0; k < columns.size(); ++k)
-        member.terms.push_back({model.columns[static_cast<std::size_t>(columns[k])].name, model.matrix.value(positions[k])});
+        member.terms.push_back(
+            {model.columns[static_cast<std::size_t>(columns[k])].name, model.matrix.value(positions[k])});
     }
     conflict.members.push_back(std::move(member));
   }
@@ -518,11 +536,12 @@ ConflictSection conflict_from_explanation(const model::Model& model, const expla
         conflict.ways_out.push_back(statement_of(c.member) + " alone: not enough, another conflict remains");
     if (ways->least.result == explain::LeastTotalChange::Result::found) {
       std::string least = std::string("The least total change (each side and bound weighed ") +
-                          (ways->least.weighted ? "by its label's weight, else 1," : "1") + " per unit of its own, " +
-                          numeric::to_display(ways->least.total, 8) + " in all): ";
+                          (ways->least.weighted ? "by its label's weight, else 1," : "1") +
+                          " per unit of its own, " + numeric::to_display(ways->least.total, 8) + " in all): ";
       for (std::size_t k = 0; k < ways->least.moves.size(); ++k) {
         const explain::Move& move = ways->least.moves[k];
-        least += (k ? "; " : "") + statement_of(move.member) + ": " + move_words(move.member, move.to, move.by);
+        least +=
+            (k ? "; " : "") + statement_of(move.member) + ": " + move_words(move.member, move.to, move.by);
       }
       conflict.ways_out.push_back(least);
     }

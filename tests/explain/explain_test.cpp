@@ -3,8 +3,8 @@
 // each member's witness meets every other entry.  Crafted models (invented, worked by hand) have
 // one known IIS; itest2 and itest6 (Netlib's infeasible collection, ../shared/netlib-infeas) have
 // several overlapping ones, so only validity and irreducibility are asserted there.
-#include "plumb/exact/solve.hpp"
 #include "plumb/explain/explain.hpp"
+#include "plumb/exact/solve.hpp"
 #include "plumb/model/read.hpp"
 #include "shared_data.hpp"
 
@@ -416,7 +416,8 @@ TEST_P(ExplainItest, AllFindsEveryConflictEachProven) {
 TEST(Explain, AllFindsThreeDisjointConflicts) {
   ModelBuilder builder("three-conflicts");
   for (const char* name : {"a", "b", "c"}) builder.column(name, 0, q(0), q(1));
-  for (const char* name : {"a", "b", "c"}) builder.row(std::string(name) + "_floor", Terms{{name, 1}}, q(3), {});
+  for (const char* name : {"a", "b", "c"})
+    builder.row(std::string(name) + "_floor", Terms{{name, 1}}, q(3), {});
   model::Model m = builder.build();
   Options options;
   options.all = true;

@@ -1,8 +1,8 @@
 // Ways out of an infeasible model: the least change of one requirement alone and the least total
 // change, each asserted exactly against values worked by hand, and each answer's certificate
 // accepted by the checker on its changed model.
-#include "plumb/exact/solve.hpp"
 #include "plumb/explain/ways_out.hpp"
+#include "plumb/exact/solve.hpp"
 #include "plumb/model/read.hpp"
 
 #include <gtest/gtest.h>
@@ -126,7 +126,10 @@ TEST(WaysOut, OneChangeAloneIsNotEnoughWhenAnotherConflictRemains) {
 }
 
 TEST(WaysOut, HardEntriesAloneConflictingLeaveNoLeastChange) {
-  auto m = ModelBuilder("hard-conflict").column("x", 0, q(0), q(1)).row("floor", {{"x", 1}}, q(3), std::nullopt).build();
+  auto m = ModelBuilder("hard-conflict")
+               .column("x", 0, q(0), q(1))
+               .row("floor", {{"x", 1}}, q(3), std::nullopt)
+               .build();
   m.rows[0].label.hard = true;
   m.columns[0].label.hard = true;
   EXPECT_EQ(least_total_change(m).result, LeastTotalChange::Result::hard_conflict);

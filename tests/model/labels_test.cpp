@@ -75,10 +75,13 @@ TEST(Labels, WeightColumn) {
   EXPECT_EQ(back.rows[0].label, m.rows[0].label) << written.str();
   EXPECT_EQ(back.columns[0].upper_label, m.columns[0].upper_label) << written.str();
   for (const char* weight : {"0", "-1", "heavy", "1/2"})
-    EXPECT_THROW(plumb::model::apply_labels_text(
-                     m, std::string("name,kind,statement,unit,group,hard,decision,source,owner,weight\ncap,row,,,,,,,,") + weight + "\n",
-                     "small.labels.csv"),
-                 InputError)
+    EXPECT_THROW(
+        plumb::model::apply_labels_text(
+            m,
+            std::string("name,kind,statement,unit,group,hard,decision,source,owner,weight\ncap,row,,,,,,,,") +
+                weight + "\n",
+            "small.labels.csv"),
+        InputError)
         << weight;
 }
 

@@ -41,7 +41,8 @@ TEST(ExplainRender, MembersWithoutLabelsAreNamedWithTheirAlgebra) {
 TEST(ExplainRender, DerivationInWholeNumbers) {
   std::string text = text_of(small_conflict());
   EXPECT_TRUE(has(text, "  + 1 x demand\n       2 x >= 10\n  - 2 x x\n       x <= 3\n")) << text;
-  EXPECT_TRUE(has(text, "Every quantity cancels (x), and what is left says\n  0 >= 4, which is false")) << text;
+  EXPECT_TRUE(has(text, "Every quantity cancels (x), and what is left says\n  0 >= 4, which is false"))
+      << text;
 }
 
 // Invented chain: x0 >= 1 (a row), each x(k+1) - x(k) >= 1 for k < 11, and x11 <= 5 (a bound): all
@@ -50,13 +51,15 @@ TEST(ExplainRender, DerivationInWholeNumbers) {
 // counts the five others, each adding 1.
 TEST(ExplainRender, LongDerivationIsSummarised) {
   ModelBuilder builder("chain");
-  for (int k = 0; k <= 11; ++k) builder.column("x" + std::to_string(k), 0, Rational(0), k == 11 ? model::Side(5) : model::Side());
+  for (int k = 0; k <= 11; ++k)
+    builder.column("x" + std::to_string(k), 0, Rational(0), k == 11 ? model::Side(5) : model::Side());
   builder.row("start", Terms{{"x0", 1}}, Rational(1), {});
   for (int k = 0; k < 11; ++k)
-    builder.row("step" + std::to_string(k), Terms{{"x" + std::to_string(k + 1), 1}, {"x" + std::to_string(k), -1}},
-                Rational(1), {});
+    builder.row("step" + std::to_string(k),
+                Terms{{"x" + std::to_string(k + 1), 1}, {"x" + std::to_string(k), -1}}, Rational(1), {});
   std::string text = text_of(builder.build());
-  EXPECT_TRUE(has(text, "  and 5 more requirements (--json lists them), whose weighted limits add 5\n")) << text;
+  EXPECT_TRUE(has(text, "  and 5 more requirements (--json lists them), whose weighted limits add 5\n"))
+      << text;
   EXPECT_TRUE(has(text, "0 >= 7, which is false")) << text;
 }
 
@@ -78,12 +81,15 @@ TEST(ExplainRender, GroupsAreSaidInASentence) {
   options.by_group = true;
   std::ostringstream grouped;
   write_explain_text(m, explain::explain(m, options), nullptr, "", grouped);
-  EXPECT_TRUE(has(grouped.str(), "In groups: the contract requirements conflict with the hard plant requirements, kept as given"))
+  EXPECT_TRUE(
+      has(grouped.str(),
+          "In groups: the contract requirements conflict with the hard plant requirements, kept as given"))
       << grouped.str();
   options.within = "contract";
   std::ostringstream opened;
   write_explain_text(m, explain::explain(m, options), nullptr, "", opened);
-  EXPECT_TRUE(has(opened.str(), "In groups: \"x_order\" and \"y_order\" conflict with the hard plant requirements"))
+  EXPECT_TRUE(
+      has(opened.str(), "In groups: \"x_order\" and \"y_order\" conflict with the hard plant requirements"))
       << opened.str();
 }
 
@@ -104,7 +110,8 @@ TEST(ExplainRender, LabelsGiveStatementsUnitsAndHardness) {
 TEST(ExplainRender, IntegerMarkersAreNotedAsTheLpRelaxation) {
   model::Model m = small_conflict();
   m.columns[0].integer = true;
-  EXPECT_TRUE(has(text_of(m), "note       1 columns are marked integer: plumb explained the LP relaxation\n"));
+  EXPECT_TRUE(
+      has(text_of(m), "note       1 columns are marked integer: plumb explained the LP relaxation\n"));
 }
 
 TEST(ExplainRender, HardAloneIsTheModelInconsistent) {

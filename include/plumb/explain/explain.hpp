@@ -63,7 +63,7 @@ struct Explanation {
   // the hard entries, each with its multiplier; under --by-group, members of one group are adjacent.
   std::vector<Member> members;
   std::vector<Member> hard;
-  std::vector<std::string> groups;       // by_group: per unit of the subsystem its group ("" for a single entry)
+  std::vector<std::string> groups;  // by_group: per unit of the subsystem its group ("" for a single entry)
   certificate::Certificate certificate;  // feasible or infeasible_subsystem; empty when stopped
   check::Verdict verdict;                // the independent checker on `certificate`
   std::vector<OrderTried> orders;        // the orders tried; the first smallest one is kept
@@ -71,7 +71,7 @@ struct Explanation {
   long sub_solves = 0;
   double float_seconds = 0, exact_seconds = 0, seconds = 0;
   run::StopReason stop_reason = run::StopReason::none;  // also set when a limit cut --all short
-  std::string stopped_during;  // the phase a stopped search was in
+  std::string stopped_during;                           // the phase a stopped search was in
   // --all: the further conflicts found with the members in `set_aside` left out, each proven on its
   // own; `set_aside` relaxed together removes every conflict found (a heuristic cover, not minimal).
   std::vector<Explanation> further;

@@ -42,9 +42,9 @@ struct Move {
 struct LeastTotalChange {
   enum class Result { found, hard_conflict, stopped };
   Result result = Result::stopped;
-  Rational total;           // found: the weighted sum of the moves
-  bool weighted = false;    // some soft entry's label gives a weight other than 1
-  std::vector<Move> moves;  // found: the sides and bounds that move, in model order
+  Rational total;                  // found: the weighted sum of the moves
+  bool weighted = false;           // some soft entry's label gives a weight other than 1
+  std::vector<Move> moves;         // found: the sides and bounds that move, in model order
   certificate::Certificate proof;  // found: optimal certificate of the elastic LP
   check::Verdict verdict;
 };

@@ -30,7 +30,9 @@ struct Label {
   std::string owner{};        // the role that answers for it, e.g. "blending engineer"
   // What relaxing it by one unit costs in plumb explain's least total change (> 0); 1 when empty.
   std::optional<Rational> weight{};
-  bool empty() const { return statement.empty() && unit.empty() && group.empty() && !hard && !recorded() && !weight; }
+  bool empty() const {
+    return statement.empty() && unit.empty() && group.empty() && !hard && !recorded() && !weight;
+  }
   // True when a decision, source or owner is recorded.
   bool recorded() const { return !decision.empty() || !source.empty() || !owner.empty(); }
   bool operator==(const Label&) const = default;
