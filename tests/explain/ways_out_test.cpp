@@ -125,6 +125,65 @@ TEST(WaysOut, OneChangeAloneIsNotEnoughWhenAnotherConflictRemains) {
   EXPECT_TRUE(least.verdict.valid) << least.verdict.failure;
 }
 
+// The parametric argument, on its own: each way out's certificate is an optimality proof of
+// "best g(x) over the rest of the model" whose dual bound equals the reported value t.  Weak
+// duality then gives g(x) <= t (>= t for an upper side) for every x meeting the rest, so the member
+// at any value past t, with those multipliers, is a Farkas proof of infeasibility; and x* meets
+// the member at t.  Checked here: the certificate is valid on the changed model, it is an optimum,
+// and its objective is t.
+TEST(WaysOut, EachValueIsTheProvenOptimumOfTheRest) {
+  model::Model m = model::read_model(std::string(PLUMB_CORPUS_DIR) + "/summer-blend-tight.plumb");
+  WaysOut ways = find_ways_out(m, explain(m), nullptr, 20);
+  for (const SingleChange& c : ways.single) {
+    ASSERT_EQ(c.result, SingleChange::Result::moves);
+    EXPECT_EQ(c.proof.status, certificate::Status::optimal);
+    ASSERT_TRUE(c.proof.objective.has_value());
+    EXPECT_EQ(*c.proof.objective, c.to) << c.member.entry.name;
+    EXPECT_TRUE(c.verdict.valid) << c.verdict.failure;
+  }
+}
+
+// The two-conflict model's elastic LP written out by hand (every soft side and bound with its own
+// elastic s >= 0 costing 1; no entry is hard): its exact optimum is the least total change.
+TEST(WaysOut, LeastTotalChangeIsTheHandWrittenElasticOptimum) {
+  auto m = ModelBuilder("two-conflicts")
+               .column("a", 0)
+               .column("b", 0)
+               .column("y", 0, q(0), q(1))
+               .row("first", {{"a", 1}}, q(5), std::nullopt)
+               .row("second", {{"b", 1}}, q(5), std::nullopt)
+               .row("gate", {{"a", 1}, {"b", 1}}, std::nullopt, q(8))
+               .row("y_floor", {{"y", 1}}, q(3), std::nullopt)
+               .build();
+  auto elastic = ModelBuilder("two-conflicts, elastic, by hand")
+                     .column("a", 0, std::nullopt)
+                     .column("b", 0, std::nullopt)
+                     .column("y", 0, std::nullopt)
+                     .column("s_first", 1)
+                     .column("s_second", 1)
+                     .column("s_gate", 1)
+                     .column("s_y_floor", 1)
+                     .column("s_a_lower", 1)
+                     .column("s_b_lower", 1)
+                     .column("s_y_lower", 1)
+                     .column("s_y_upper", 1)
+                     .row("first", {{"a", 1}, {"s_first", 1}}, q(5), std::nullopt)
+                     .row("second", {{"b", 1}, {"s_second", 1}}, q(5), std::nullopt)
+                     .row("gate", {{"a", 1}, {"b", 1}, {"s_gate", -1}}, std::nullopt, q(8))
+                     .row("y_floor", {{"y", 1}, {"s_y_floor", 1}}, q(3), std::nullopt)
+                     .row("a_lower", {{"a", 1}, {"s_a_lower", 1}}, q(0), std::nullopt)
+                     .row("b_lower", {{"b", 1}, {"s_b_lower", 1}}, q(0), std::nullopt)
+                     .row("y_lower", {{"y", 1}, {"s_y_lower", 1}}, q(0), std::nullopt)
+                     .row("y_upper", {{"y", 1}, {"s_y_upper", -1}}, std::nullopt, q(1))
+                     .build();
+  exact::CertifiedSolution by_hand = exact::certified_solve(elastic);
+  ASSERT_EQ(by_hand.solution.outcome, exact::Outcome::optimal);
+  LeastTotalChange least = least_total_change(m);
+  ASSERT_EQ(least.result, LeastTotalChange::Result::found);
+  EXPECT_EQ(least.total, by_hand.solution.objective);
+  EXPECT_EQ(least.total, 4);
+}
+
 TEST(WaysOut, HardEntriesAloneConflictingLeaveNoLeastChange) {
   auto m = ModelBuilder("hard-conflict")
                .column("x", 0, q(0), q(1))
