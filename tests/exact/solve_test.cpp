@@ -3,6 +3,8 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
+
 namespace plumb::exact {
 namespace {
 
@@ -89,7 +91,8 @@ TEST(ExactSolve, KleeMintyCubes) {
     for (int i = 1; i <= n; ++i) {
       five_power *= 5;
       Terms terms;
-      for (int j = 1; j < i; ++j) terms.emplace_back("x" + std::to_string(j), Rational(Integer(1) << (i - j + 1)));
+      for (int j = 1; j < i; ++j)
+        terms.emplace_back("x" + std::to_string(j), Rational(Integer(1) << (i - j + 1)));
       terms.emplace_back("x" + std::to_string(i), 1);
       builder.row("k" + std::to_string(i), terms, {}, Rational(five_power));
     }
@@ -367,6 +370,29 @@ TEST(ExactSolve, CrossedLimitsAreProvenByThemselves) {
   }
 }
 
+// Worked by hand (invented): minimise 2 x1 + 3 x2 with x1 + x2 >= 4 and x1 + 3 x2 >= 6, x >= 0.
+// The logical basis is dual feasible (costs >= 0) and primal infeasible, which is the exact dual
+// simplex's case; it ends at the vertex (3, 1) with objective 9 (the other vertices, (6, 0) and
+// (0, 4), cost 12).  The progress callback sees the dual's phase: a stub of the dual that returns
+// at once leaves the optimum to the primal and fails here.
+TEST(ExactSolve, ExactDualSimplexRunsFromADualFeasibleBasis) {
+  auto model = model::ModelBuilder("dual-case")
+                   .column("x1", 2)
+                   .column("x2", 3)
+                   .row("r1", {{"x1", 1}, {"x2", 1}}, Rational(4), std::nullopt)
+                   .row("r2", {{"x1", 1}, {"x2", 3}}, Rational(6), std::nullopt)
+                   .build();
+  SolveOptions options;
+  options.method = Method::exact;
+  std::vector<std::string> phases;
+  options.progress = [&phases](const Progress& p) { phases.push_back(p.phase); };
+  CertifiedSolution result = certified_solve(model, options);
+  ASSERT_TRUE(result.certified()) << result.verdict.failure;
+  EXPECT_EQ(result.solution.objective, 9);
+  EXPECT_EQ(result.solution.x, (std::vector<Rational>{3, 1}));
+  EXPECT_NE(std::find(phases.begin(), phases.end(), "exact dual"), phases.end());
+}
+
 // An injected float failure sends the solve to the exact engine from the logical basis.
 TEST(ExactSolve, HybridFallsBackWhenTheFloatSearchFails) {
   auto model = chvatal_chapter2();
@@ -408,7 +434,8 @@ TEST(ExactSolve, CheckerRejectionSendsTheSolveToThePureEngine) {
 TEST(ExactSolve, StopsAtTheBudget) {
   auto model = chvatal_chapter2();
   run::Budget budget(0.0, std::nullopt);
-  while (budget.elapsed_seconds() <= 0) {}
+  while (budget.elapsed_seconds() <= 0) {
+  }
   SolveOptions options;
   options.method = Method::exact;
   options.budget = &budget;
