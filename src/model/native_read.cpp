@@ -136,6 +136,7 @@ class Reader {
   // decision "text" {source "text" | owner "text"}: about the model as a whole.
   void decision_statement() {
     --next_;  // the keyword opens the decision's own text, read like the label part of that name
+    const Token& keyword = peek();
     Label label;
     LabelParts parts;
     while (peek().kind != TokenKind::end) {
@@ -143,6 +144,9 @@ class Reader {
         fail(peek(), "source \"text\", owner \"text\" or the end of the decision");
       label_clause(label, parts);
     }
+    // An empty one would say nothing, and could not be written back (found by the native fuzzer).
+    if (label.decision.empty())
+      throw InputError(keyword.where, "a decision with empty text", "what was decided, in double quotes");
     model_.decisions.push_back({std::move(label.decision), std::move(label.source), std::move(label.owner)});
   }
 
