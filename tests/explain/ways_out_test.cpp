@@ -99,17 +99,22 @@ TEST(WaysOut, LabelWeightsSteerTheLeastTotalChange) {
 }
 
 // Invented: two deliveries of at least 5 t each through one gate of at most 8 t, and a second,
-// separate conflict y >= 3 against y <= 1.  Moving the gate alone cannot fix the second conflict.
+// separate conflict y >= 3 against y <= 1.
+model::Model two_conflicts() {
+  return ModelBuilder("two-conflicts")
+      .column("a", 0)
+      .column("b", 0)
+      .column("y", 0, q(0), q(1))
+      .row("first", {{"a", 1}}, q(5), std::nullopt)
+      .row("second", {{"b", 1}}, q(5), std::nullopt)
+      .row("gate", {{"a", 1}, {"b", 1}}, std::nullopt, q(8))
+      .row("y_floor", {{"y", 1}}, q(3), std::nullopt)
+      .build();
+}
+
+// Moving the gate alone cannot fix the second conflict.
 TEST(WaysOut, OneChangeAloneIsNotEnoughWhenAnotherConflictRemains) {
-  auto m = ModelBuilder("two-conflicts")
-               .column("a", 0)
-               .column("b", 0)
-               .column("y", 0, q(0), q(1))
-               .row("first", {{"a", 1}}, q(5), std::nullopt)
-               .row("second", {{"b", 1}}, q(5), std::nullopt)
-               .row("gate", {{"a", 1}, {"b", 1}}, std::nullopt, q(8))
-               .row("y_floor", {{"y", 1}}, q(3), std::nullopt)
-               .build();
+  model::Model m = two_conflicts();
   Member gate;
   gate.entry = {certificate::EntryKind::row, "gate", Limit::upper};
   gate.index = 2;
@@ -146,15 +151,7 @@ TEST(WaysOut, EachValueIsTheProvenOptimumOfTheRest) {
 // The two-conflict model's elastic LP written out by hand (every soft side and bound with its own
 // elastic s >= 0 costing 1; no entry is hard): its exact optimum is the least total change.
 TEST(WaysOut, LeastTotalChangeIsTheHandWrittenElasticOptimum) {
-  auto m = ModelBuilder("two-conflicts")
-               .column("a", 0)
-               .column("b", 0)
-               .column("y", 0, q(0), q(1))
-               .row("first", {{"a", 1}}, q(5), std::nullopt)
-               .row("second", {{"b", 1}}, q(5), std::nullopt)
-               .row("gate", {{"a", 1}, {"b", 1}}, std::nullopt, q(8))
-               .row("y_floor", {{"y", 1}}, q(3), std::nullopt)
-               .build();
+  model::Model m = two_conflicts();
   auto elastic = ModelBuilder("two-conflicts, elastic, by hand")
                      .column("a", 0, std::nullopt)
                      .column("b", 0, std::nullopt)
