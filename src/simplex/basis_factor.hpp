@@ -63,11 +63,12 @@ class ListPool {
  public:
   void reset(int lists, const std::vector<int>& room);
   void append(int list, int i, double v);
-  void remove(int list, int i);  // the entry with index i, if present
+  double take(int list, int i);  // removes the entry with index i, if present; its value, else 0
   void clear(int list) { size_[list] = 0; }
   int size(int list) const { return size_[list]; }
   const int* indices(int list) const { return index_.data() + start_[list]; }
   const double* values(int list) const { return value_.data() + start_[list]; }
+  double* values(int list) { return value_.data() + start_[list]; }
 
  private:
   std::vector<int> start_, size_, room_;
