@@ -95,10 +95,19 @@ std::optional<int> Model::find_column(std::string_view name) const {
 }
 
 Rational Model::objective_value(const std::vector<Rational>& x) const {
-  numeric::CommonDenominator scaled = numeric::over_common_denominator(x);
-  Rational sum = 0;
+  // Over a common denominator of the terms that count only: a feasibility question has no costs,
+  // and scaling every value of x for it had cost a filter's sub-solves a twentieth of their time.
+  std::vector<int> counted;
+  std::vector<Rational> values;
   for (int j = 0; j < column_count(); ++j)
-    if (objective.coefficients[j] != 0 && scaled.numerators[j] != 0) sum += objective.coefficients[j] * scaled.numerators[j];
+    if (objective.coefficients[j] != 0 && x[j] != 0) {
+      counted.push_back(j);
+      values.push_back(x[j]);
+    }
+  numeric::CommonDenominator scaled = numeric::over_common_denominator(values);
+  Rational sum = 0;
+  for (std::size_t k = 0; k < counted.size(); ++k)
+    sum += objective.coefficients[counted[k]] * scaled.numerators[k];
   return sum / scaled.denominator + objective.constant;
 }
 
