@@ -84,7 +84,9 @@ struct AuxiliaryOptimum {
 };
 
 // Solves the auxiliary LP in float from `start` and certifies the basis it ends at (with
-// correction rounds as needed), never pivoting exactly.
+// correction rounds as needed); when that fails, the exact engine pivots on the auxiliary LP from
+// the last basis tried, which is nearly optimal there (gran with one row relaxed: 3 exact pivots
+// here against 226 on the model itself from the float search's basis, 12.7 s).
 AuxiliaryOptimum certified_optimum(const model::Model& auxiliary, const SolveOptions& options,
                                    const simplex::Basis& start, SolveStats& stats, const std::string& what) {
   simplex::FloatOptions search;
@@ -96,7 +98,12 @@ AuxiliaryOptimum certified_optimum(const model::Model& auxiliary, const SolveOpt
   if (optimum.found.status != simplex::FloatStatus::optimal) return optimum;
   RationalEngine engine(auxiliary, options.budget, &options.progress);
   simplex::Basis basis = optimum.found.basis;
-  if (certify_with_corrections(engine, auxiliary, options, basis, stats)) optimum.exact = engine.run();
+  bool refined = options.fault != Fault::auxiliary_not_refined &&
+                 certify_with_corrections(engine, auxiliary, options, basis, stats);
+  if (!refined) engine.start_from(basis);
+  optimum.exact = engine.run();
+  stats.exact_iterations += optimum.exact->iterations;
+  if (optimum.exact->outcome != Outcome::optimal) optimum.exact.reset();
   return optimum;
 }
 
@@ -112,7 +119,7 @@ Solution proven(Outcome outcome, const SolveStats& stats, const char* proof) {
   solution.outcome = outcome;
   solution.stats = stats;
   solution.stats.proof = proof;
-  solution.stats.repaired = stats.correction_rounds > 0;
+  solution.stats.repaired = stats.correction_rounds > 0 || stats.exact_iterations > 0;
   return solution;
 }
 

@@ -337,6 +337,19 @@ TEST(ExactSolve, HybridCertifiesInfeasibleAndUnboundedOutcomes) {
   EXPECT_EQ(result.solution.y, (std::vector<Rational>{-1, 1}));
 }
 
+// When refinement cannot certify the least-infeasibility LP's float basis (injected here; gran
+// with one row relaxed does it for real), the exact engine pivots on that LP from the basis: the
+// proof is still its certified optimum, not pivots on the model from the float search's basis.
+TEST(ExactSolve, LeastInfeasibilityIsPivotedExactlyWhenRefinementFails) {
+  SolveOptions options;
+  options.fault = Fault::auxiliary_not_refined;
+  CertifiedSolution result = certified_solve(infeasible_rows_model(), options);
+  ASSERT_TRUE(result.certified()) << result.verdict.failure;
+  EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
+  EXPECT_EQ(result.solution.stats.proof, "least infeasibility");
+  EXPECT_EQ(result.solution.y, (std::vector<Rational>{-1, 1}));  // by hand, as above
+}
+
 // Invented: min -x - y with x - y <= 1 has no dual feasible basis, and z in [0, 1] must reach 2,
 // so it is infeasible too.  The float search, after its dual phase 1 finds no dual feasible
 // basis, must still find the infeasibility, and the least-infeasibility LP proves it.

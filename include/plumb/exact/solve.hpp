@@ -35,9 +35,11 @@ struct Progress {
 // (docs/solving.md).  Never set outside tests.
 enum class Fault {
   none,
-  float_search_fails,  // the float search reports failure: the exact engine solves from scratch
-  result_corrupted,    // the solve path's result is spoiled before the check: the checker rejects
-                       // it and the pure exact engine solves again
+  float_search_fails,     // the float search reports failure: the exact engine solves from scratch
+  result_corrupted,       // the solve path's result is spoiled before the check: the checker rejects
+                          // it and the pure exact engine solves again
+  auxiliary_not_refined,  // refinement does not certify an auxiliary LP's float basis: the exact
+                          // engine pivots on the auxiliary LP from that basis
 };
 
 struct SolveOptions {
