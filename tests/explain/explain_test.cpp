@@ -413,12 +413,16 @@ TEST_P(ExplainItest, AllFindsEveryConflictEachProven) {
 
 // Invented, worked by hand: three quantities, each with a floor of 3 and a cap of 1: three
 // disjoint conflicts, one per quantity.  --all finds all three; the cover holds one of each.
-TEST(Explain, AllFindsThreeDisjointConflicts) {
+model::Model three_conflicts_model() {
   ModelBuilder builder("three-conflicts");
   for (const char* name : {"a", "b", "c"}) builder.column(name, 0, q(0), q(1));
   for (const char* name : {"a", "b", "c"})
     builder.row(std::string(name) + "_floor", Terms{{name, 1}}, q(3), {});
-  model::Model m = builder.build();
+  return builder.build();
+}
+
+TEST(Explain, AllFindsThreeDisjointConflicts) {
+  model::Model m = three_conflicts_model();
   Options options;
   options.all = true;
   Explanation e = explain(m, options);
@@ -433,6 +437,28 @@ TEST(Explain, AllFindsThreeDisjointConflicts) {
   for (const Explanation& more : e.further) expect_proven_iis(m, more);
   EXPECT_EQ(e.set_aside.size(), 3u);
   expect_cover_removes_every_conflict(m, e);
+}
+
+// --all stopped after its first conflict (the budget abandoned from the progress callback once
+// the sub-solves of a plain explain are spent): the conflict found stands, proven, and the stop
+// is reported; the search for the others did not finish.
+TEST(Explain, AllStoppedAfterTheFirstConflictKeepsIt) {
+  model::Model m = three_conflicts_model();
+  const long first_search = explain(m).sub_solves;
+  run::Budget budget;
+  Options options;
+  options.all = true;
+  options.budget = &budget;
+  options.progress = [&budget, first_search](const Progress& p) {
+    if (p.sub_solves > first_search) budget.abandon();
+  };
+  Explanation e = explain(m, options);
+  ASSERT_EQ(e.outcome, Outcome::infeasible_subsystem);
+  EXPECT_TRUE(e.verdict.valid) << e.verdict.failure;
+  expect_proven_iis(m, e);
+  EXPECT_EQ(e.stop_reason, run::StopReason::abandoned);
+  EXPECT_LT(e.further.size(), 2u);
+  for (const Explanation& more : e.further) expect_proven_iis(m, more);
 }
 
 INSTANTIATE_TEST_SUITE_P(Netlib, ExplainItest, ::testing::Values("itest2", "itest6"),
