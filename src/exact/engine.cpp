@@ -196,8 +196,15 @@ bool RationalEngine::start_from(const simplex::Basis& basis) {
   return repaired_;
 }
 
-bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
-                                           simplex::CorrectionProblem* correction) {
+RefineLimits RationalEngine::refine_limits() const {
+  RefineLimits limits;
+  limits.budget = budget_;
+  return limits;
+}
+
+// Rests the variables as `basis` says and factorizes its basic columns in float for refinement;
+// false when the basis does not fit or its float LU finds it singular.
+bool RationalEngine::rest_for_refinement(const simplex::Basis& basis, RefinedSolver& solver) {
   settled_.reset();
   if (!fits(basis)) return false;
   head_ = rest_as_in(basis);
@@ -208,10 +215,13 @@ bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
   }
   std::vector<SparseColumn> columns(static_cast<std::size_t>(m_));
   for (int p = 0; p < m_; ++p) columns[p] = constraint_column(head_[p]);
-  RefineLimits limits;
-  limits.budget = budget_;
-  RefinedSolver solver(limits);
-  if (!solver.factorize(m_, columns)) return false;
+  return solver.factorize(m_, columns);
+}
+
+bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
+                                           simplex::CorrectionProblem* correction) {
+  RefinedSolver solver(refine_limits());
+  if (!rest_for_refinement(basis, solver)) return false;
 
   nonbasic_activity(rows_);
   std::vector<Rational> rhs(static_cast<std::size_t>(m_), Rational(0));
@@ -262,7 +272,7 @@ bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
     if (usable && std::isfinite(size) && std::abs(d) > error) {
       sign = d > 0 ? 1 : -1;
     } else {
-      exact_reduced_cost(j, numerators, denominator, sum);
+      exact_reduced_cost(j, cost_[j], numerators, denominator, sum);
       sign = mpz_sgn(sum.backend().data());
       d = quotient(sum, scale_, denominator);
     }
@@ -405,19 +415,19 @@ void RationalEngine::for_each_priced_column(Visit&& visit) const {
 
 // sum = D_j Q d_j = D_j c'_j Q - sum_i (D_j a_ij) P_i for y = P / Q, with scale_ = D_j the least
 // common denominator of column j and its cost: integer products without a gcd each.
-void RationalEngine::exact_reduced_cost(int j, const std::vector<Integer>& numerators,
+void RationalEngine::exact_reduced_cost(int j, const Rational& cost, const std::vector<Integer>& numerators,
                                         const Integer& denominator, Integer& sum) {
   auto rows = model_.matrix.column_rows(j);
   auto values = model_.matrix.column_values(j);
   mpz_ptr scale = scale_.backend().data();
   mpz_ptr term = term_.backend().data();
-  mpz_set(scale, mpq_denref(cost_[j].backend().data()));
+  mpz_set(scale, mpq_denref(cost.backend().data()));
   for (const Rational& a : values) mpz_lcm(scale, scale, mpq_denref(a.backend().data()));
   auto times_scale = [scale, term](const Rational& q) {
     mpz_divexact(term, scale, mpq_denref(q.backend().data()));
     mpz_mul(term, term, mpq_numref(q.backend().data()));
   };
-  times_scale(cost_[j]);
+  times_scale(cost);
   mpz_mul(sum.backend().data(), term, denominator.backend().data());
   for (std::size_t e = 0; e < rows.size(); ++e) {
     times_scale(values[e]);
@@ -717,6 +727,55 @@ bool RationalEngine::certify_infeasible_row(int variable) {
   settled_ = Step::infeasible;
   phase_ = "exact certification";
   return true;
+}
+
+bool RationalEngine::certify_infeasible_row_by_refinement(const simplex::Basis& basis, int variable) {
+  RefinedSolver solver(refine_limits());
+  if (variable < 0 || variable >= total() || !rest_for_refinement(basis, solver) || !basic(variable))
+    return false;
+  std::vector<Rational> unit(static_cast<std::size_t>(m_), Rational(0));
+  unit[position_[variable]] = 1;
+  auto rho = solver.solve_transposed(unit);
+  if (!rho) return false;
+  for (int sign : {1, -1}) {
+    if (!farkas_holds(solver.common_numerators(), sign)) continue;
+    farkas_ = std::move(*rho);
+    if (sign < 0)
+      for (Rational& v : farkas_) v = -v;
+    settled_ = Step::infeasible;
+    phase_ = "exact certification";
+    return true;
+  }
+  return false;
+}
+
+// Whether y = sign * N (N the numerators of y over a positive denominator, which changes no sign
+// or comparison) proves infeasibility as the checker asks (docs/certificates.md): a positive y_i
+// only on a lower side and a negative one only on an upper side, a_j = (A^T y)_j positive only on
+// a column with an upper bound and negative only on one with a lower bound, and the sides' force
+// sum_i y_i side_i above the bounds' allowance sum_j a_j bound_j.
+bool RationalEngine::farkas_holds(const std::vector<Integer>& numerators, int sign) {
+  Rational force = 0, allowance = 0;
+  for (int i = 0; i < m_; ++i) {
+    int s = sign * mpz_sgn(numerators[i].backend().data());
+    if (s == 0) continue;
+    const Rational* side = s > 0 ? lower_[n_ + i] : upper_[n_ + i];
+    if (!side) return false;
+    force += Rational(numerators[i]) * *side;
+  }
+  const Integer one(1);
+  const Rational no_cost(0);
+  Integer sum;
+  for (int j = 0; j < n_; ++j) {
+    exact_reduced_cost(j, no_cost, numerators, one, sum);  // sum = -D_j N.a_j for the scale D_j > 0
+    int s = -sign * mpz_sgn(sum.backend().data());
+    if (s == 0) continue;
+    const Rational* bound = s > 0 ? upper_[j] : lower_[j];
+    if (!bound) return false;
+    allowance -= Rational(sum, scale_) * *bound;
+  }
+  if (sign < 0) force = -force, allowance = -allowance;
+  return force > allowance;
 }
 
 bool RationalEngine::certify_ray(int variable) {

@@ -7,6 +7,7 @@
 #include "plumb/run/budget.hpp"
 #include "plumb/simplex/basis.hpp"
 #include "plumb/simplex/float_simplex.hpp"
+#include "refine.hpp"
 
 #include <functional>
 #include <optional>
@@ -58,6 +59,9 @@ class RationalEngine {
   // After start_from: proves infeasibility from the row of B^{-1} of this basic variable, which
   // violates a bound that no nonbasic variable can bring it towards (the float search's hint).
   bool certify_infeasible_row(int variable);
+  // The same proof without a rational LU: the row of B^{-1} by refinement (refine.hpp) at this
+  // basis, and the Farkas inequality it gives checked exactly.  When false, start_from the basis.
+  bool certify_infeasible_row_by_refinement(const simplex::Basis& basis, int variable);
   // After start_from, on an exactly primal feasible basis: proves unboundedness along the edge on
   // which this nonbasic variable improves the objective and nothing blocks it.
   bool certify_ray(int variable);
@@ -88,7 +92,13 @@ class RationalEngine {
   void reduced_cost(int k, bool phase_one, Rational& out);
   bool eligible(int k, const Rational& d) const;
   bool eligible_sign(int k, int sign) const;  // as eligible, for a reduced cost of this sign
-  void exact_reduced_cost(int j, const std::vector<Integer>& numerators, const Integer& denominator, Integer& sum);
+  // sum = D_j (cost Q - a_j.N) for y = N / Q, with D_j (left in scale_) the least common
+  // denominator of cost and column j's entries.
+  void exact_reduced_cost(int j, const Rational& cost, const std::vector<Integer>& numerators,
+                          const Integer& denominator, Integer& sum);
+  bool farkas_holds(const std::vector<Integer>& numerators, int sign);
+  RefineLimits refine_limits() const;
+  bool rest_for_refinement(const simplex::Basis& basis, RefinedSolver& solver);
   simplex::CorrectionProblem correction_problem(const std::vector<double>& reduced_costs) const;
   template <class Visit>
   void for_each_priced_column(Visit&& visit) const;

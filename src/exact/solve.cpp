@@ -68,17 +68,23 @@ namespace {
 Solution engine_solution(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
                          const simplex::FloatResult* found) {
   SolveStats correction_stats;
+  detail::RationalEngine engine(model, options.budget, &options.progress);
+  bool repaired = false;
+  const char* proof = "rational basis";  // start_from's exact LU, then no pivot
+  bool row_refined = found && found->status == simplex::FloatStatus::infeasible && !options.few_multipliers &&
+                     options.fault != Fault::row_not_refined &&
+                     options.fault != Fault::auxiliary_not_refined &&
+                     engine.certify_infeasible_row_by_refinement(*start, found->ray_variable);
   std::optional<Solution> proven;
-  if (found && found->status == simplex::FloatStatus::infeasible)
+  if (found && found->status == simplex::FloatStatus::infeasible && !row_refined)
     proven = detail::prove_infeasible(model, options, *start, correction_stats);
   else if (found && found->status == simplex::FloatStatus::unbounded)
     proven = detail::prove_unbounded(model, options, *start, correction_stats);
   if (proven) return std::move(*proven);
 
-  detail::RationalEngine engine(model, options.budget, &options.progress);
-  bool repaired = false;
-  const char* proof = "rational basis";  // start_from's exact LU, then no pivot
-  if (!start) {
+  if (row_refined) {
+    proof = "refined row of the inverse";
+  } else if (!start) {
     engine.start_from_logicals();
   } else if (found && found->status != simplex::FloatStatus::optimal) {
     repaired = engine.start_from(*start);
@@ -111,7 +117,8 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
 
 // Runs the exact engine from the given basis (or from the logical basis when null).  `found`, the
 // float search's result ending at that basis, lets its claim be proven without pivots: optimality
-// by refinement, infeasibility from the row of B^{-1} it names, unboundedness along its edge.
+// by refinement, infeasibility from the row of B^{-1} it names (by refinement, else by the
+// least-infeasibility LP, else by rational LU), unboundedness along its edge.
 Solution run_exact(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
                    const simplex::FloatResult* found = nullptr) {
   auto clock = std::chrono::steady_clock::now();

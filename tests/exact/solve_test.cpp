@@ -317,8 +317,9 @@ TEST(ExactSolve, WarmStartRepairsSingularBasis) {
   EXPECT_TRUE(s.stats.repaired);
 }
 
-// The hybrid path on the invented infeasible and unbounded models above: the least-infeasibility
-// LP, and the feasible-point and ray LPs, certified by refinement (docs/solving.md).
+// The hybrid path on the invented infeasible and unbounded models above: the float search's
+// infeasible row of B^{-1} by refinement, and the feasible-point and ray LPs certified by
+// refinement (docs/solving.md).
 TEST(ExactSolve, HybridCertifiesInfeasibleAndUnboundedOutcomes) {
   auto unbounded = unbounded_model();
   auto infeasible = infeasible_rows_model();
@@ -329,30 +330,35 @@ TEST(ExactSolve, HybridCertifiesInfeasibleAndUnboundedOutcomes) {
     const bool is_unbounded = model == &unbounded;
     EXPECT_EQ(result.solution.outcome, is_unbounded ? Outcome::unbounded : Outcome::infeasible);
     EXPECT_EQ(result.solution.stats.exact_iterations, 0) << model->title;
-    EXPECT_EQ(result.solution.stats.proof, is_unbounded ? "feasible point and ray" : "least infeasibility");
+    EXPECT_EQ(result.solution.stats.proof,
+              is_unbounded ? "feasible point and ray" : "refined row of the inverse");
   }
-  // By hand: the rows say x + y <= 1 and x + y >= 3; the least infeasibility is 2 and the
-  // multipliers -1 on cap and 1 on need sum them to 0 >= 2.
+  // By hand: the rows say x + y <= 1 and x + y >= 3; the multipliers -1 on cap and 1 on need sum
+  // them to 0 >= 2, and a row of B^{-1} can only be +-1 on each (every entry is 1).
   CertifiedSolution result = certified_solve(infeasible);
   EXPECT_EQ(result.solution.y, (std::vector<Rational>{-1, 1}));
 }
 
-// When refinement cannot certify the least-infeasibility LP's float basis (injected here; gran
-// with one row relaxed does it for real), the exact engine pivots on that LP from the basis: the
-// proof is still its certified optimum, not pivots on the model from the float search's basis.
-TEST(ExactSolve, LeastInfeasibilityIsPivotedExactlyWhenRefinementFails) {
-  SolveOptions options;
-  options.fault = Fault::auxiliary_not_refined;
-  CertifiedSolution result = certified_solve(infeasible_rows_model(), options);
-  ASSERT_TRUE(result.certified()) << result.verdict.failure;
-  EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
-  EXPECT_EQ(result.solution.stats.proof, "least infeasibility");
-  EXPECT_EQ(result.solution.y, (std::vector<Rational>{-1, 1}));  // by hand, as above
+// When the float search's row of B^{-1} is not proven by refinement, the least-infeasibility LP
+// proves infeasibility (by hand: its optimum is 2 and its duals are the multipliers above); when
+// refinement cannot certify that LP's float basis either (gran with one row relaxed does it for
+// real), the exact engine pivots on that LP from the basis: the proof is still its certified
+// optimum, not pivots on the model from the float search's basis.  Both injected here.
+TEST(ExactSolve, LeastInfeasibilityProvesWhatTheRowDoesNot) {
+  for (Fault fault : {Fault::row_not_refined, Fault::auxiliary_not_refined}) {
+    SolveOptions options;
+    options.fault = fault;
+    CertifiedSolution result = certified_solve(infeasible_rows_model(), options);
+    ASSERT_TRUE(result.certified()) << result.verdict.failure;
+    EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
+    EXPECT_EQ(result.solution.stats.proof, "least infeasibility");
+    EXPECT_EQ(result.solution.y, (std::vector<Rational>{-1, 1}));
+  }
 }
 
 // Invented: min -x - y with x - y <= 1 has no dual feasible basis, and z in [0, 1] must reach 2,
 // so it is infeasible too.  The float search, after its dual phase 1 finds no dual feasible
-// basis, must still find the infeasibility, and the least-infeasibility LP proves it.
+// basis, must still find the infeasibility, and the row of B^{-1} it ends on proves it.
 TEST(ExactSolve, InfeasibleWithoutADualFeasibleBasis) {
   auto model = ModelBuilder("both")
                    .column("x", -1)
@@ -364,7 +370,7 @@ TEST(ExactSolve, InfeasibleWithoutADualFeasibleBasis) {
   CertifiedSolution result = certified_solve(model);
   EXPECT_TRUE(result.certified()) << result.verdict.failure;
   EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
-  EXPECT_EQ(result.solution.stats.proof, "least infeasibility");
+  EXPECT_EQ(result.solution.stats.proof, "refined row of the inverse");
 }
 
 // A crossed row or column is proven at once by its own two limits, and the checker agrees.

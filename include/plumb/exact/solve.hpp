@@ -39,7 +39,10 @@ enum class Fault {
   result_corrupted,       // the solve path's result is spoiled before the check: the checker rejects
                           // it and the pure exact engine solves again
   auxiliary_not_refined,  // refinement does not certify an auxiliary LP's float basis: the exact
-                          // engine pivots on the auxiliary LP from that basis
+                          // engine pivots on the auxiliary LP from that basis (and row_not_refined
+                          // holds too, so that the least-infeasibility LP is reached)
+  row_not_refined,        // the float search's infeasible row is not proven by refinement: the
+                          // least-infeasibility LP proves infeasibility instead
 };
 
 struct SolveOptions {
@@ -47,6 +50,9 @@ struct SolveOptions {
   run::Budget* budget = nullptr;                 // no limits when null
   const simplex::Basis* warm_start = nullptr;    // start from this basis when given
   std::function<void(const Progress&)> progress;  // called now and then when set
+  // Infeasibility proven by the least-infeasibility LP, whose multipliers are few (its duals are
+  // bounded by one), rather than by the float search's row of B^-1 (faster, often denser).
+  bool few_multipliers = false;
   Fault fault = Fault::none;
 };
 
