@@ -413,8 +413,8 @@ void RationalEngine::for_each_priced_column(Visit&& visit) const {
   }
 }
 
-// sum = D_j Q d_j = D_j c'_j Q - sum_i (D_j a_ij) P_i for y = P / Q, with scale_ = D_j the least
-// common denominator of column j and its cost: integer products without a gcd each.
+// sum = D_j (cost Q - sum_i a_ij P_i) for y = P / Q (D_j Q d_j when cost is c'_j), with scale_ = D_j
+// the least common denominator of column j and the cost: integer products without a gcd each.
 void RationalEngine::exact_reduced_cost(int j, const Rational& cost, const std::vector<Integer>& numerators,
                                         const Integer& denominator, Integer& sum) {
   auto rows = model_.matrix.column_rows(j);

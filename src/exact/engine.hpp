@@ -92,8 +92,6 @@ class RationalEngine {
   void reduced_cost(int k, bool phase_one, Rational& out);
   bool eligible(int k, const Rational& d) const;
   bool eligible_sign(int k, int sign) const;  // as eligible, for a reduced cost of this sign
-  // sum = D_j (cost Q - a_j.N) for y = N / Q, with D_j (left in scale_) the least common
-  // denominator of cost and column j's entries.
   void exact_reduced_cost(int j, const Rational& cost, const std::vector<Integer>& numerators,
                           const Integer& denominator, Integer& sum);
   bool farkas_holds(const std::vector<Integer>& numerators, int sign);

@@ -67,7 +67,7 @@ class Prober {
     exact::SolveOptions solve;
     solve.budget = options_.budget;
     // Each Farkas support replaces the candidates, so few multipliers pay for the slower proof:
-    // the 27 infeasible Netlib models took 29.6 s so, 45.7 s with rows of B^-1 (bgindy's first
+    // the 27 infeasible Netlib models took 29.6 s with them, 45.7 s with rows of B^-1 (bgindy's first
     // support 1 036 entries against 154), and 85 s (gran stopped at 60 s) with few multipliers
     // asked for the first solve only.
     solve.few_multipliers = true;
