@@ -93,6 +93,9 @@ AuxiliaryOptimum certified_optimum(const model::Model& auxiliary, const SolveOpt
   search.budget = options.budget;
   search.warm_start = &start;
   search.progress = float_progress(options, what + ": float ");
+  // The least-infeasibility and recession LPs are feasible by construction and the feasible-point
+  // LP has no costs: a zero-cost search beside them would find nothing new.
+  search.feasibility_search = false;
   AuxiliaryOptimum optimum{simplex::solve_float(auxiliary, search), std::nullopt};
   stats.auxiliary_iterations += optimum.found.iterations;
   if (optimum.found.status != simplex::FloatStatus::optimal) return optimum;

@@ -208,6 +208,7 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
   }
   solution.stats.float_seconds = float_seconds;
   solution.stats.float_iterations = found.iterations;
+  solution.stats.zero_cost_search = found.zero_cost_search;
   return solution;
 }
 

@@ -81,6 +81,7 @@ nlohmann::ordered_json solve_json(const model::Model& model, const exact::Certif
                   {"correction_iterations", stats.correction_iterations},
                   {"repaired", stats.repaired},
                   {"fell_back", stats.fell_back},
+                  {"zero_cost_search", stats.zero_cost_search},
                   {"auxiliary_iterations", stats.auxiliary_iterations},
                   {"proof", stats.proof},
                   {"peak_memory_mib", std::round(figures.peak_memory_mib * 10) / 10}};

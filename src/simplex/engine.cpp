@@ -50,13 +50,14 @@ constexpr double cost_perturbation = 1e-6;
 
 }  // namespace
 
-FloatEngine::FloatEngine(const LpData& lp, const FloatOptions& options)
+FloatEngine::FloatEngine(const LpData& lp, const FloatOptions& options, SearchGoal goal)
     : lp_(lp),
       options_(options),
       m_(lp.rows),
       n_(lp.columns),
       inf_(std::numeric_limits<double>::infinity()),
-      cost_(lp.cost),
+      goal_cost_(goal == SearchGoal::model_costs ? lp.cost : std::vector<double>(lp.cost.size(), 0.0)),
+      cost_(goal_cost_),
       lower_(lp.lower),
       upper_(lp.upper) {
   const int total = m_ + n_;
@@ -327,6 +328,7 @@ double FloatEngine::objective() const {
 
 bool FloatEngine::polls_say_stop(const char* phase) {
   if (options_.budget && options_.budget->exhausted()) return true;
+  if (stop_flag_ && stop_flag_->load(std::memory_order_relaxed)) return true;
   if (options_.progress) {
     auto now = std::chrono::steady_clock::now();
     if (iterations_ - last_report_iteration_ >= 100 || now - last_report_ >= std::chrono::milliseconds(250)) {
@@ -648,7 +650,7 @@ double FloatEngine::remove_dual_infeasibilities(double limit) {
 }
 
 void FloatEngine::restore_costs() {
-  cost_ = lp_.cost;
+  cost_ = goal_cost_;
   costs_modified_ = false;
 }
 

@@ -6,6 +6,7 @@
 #include "ratio_test.hpp"
 #include "plumb/simplex/float_simplex.hpp"
 
+#include <atomic>
 #include <chrono>
 #include <random>
 #include <string>
@@ -19,14 +20,20 @@ struct NumericalTrouble {
   std::string what;
 };
 
+// What a search minimises: the model's costs, or nothing at all (zero costs: every basis is dual
+// feasible, so the search only looks for a feasible point, and proves infeasibility when none exists).
+enum class SearchGoal { model_costs, feasibility };
+
 class FloatEngine {
  public:
-  FloatEngine(const LpData& lp, const FloatOptions& options);
+  FloatEngine(const LpData& lp, const FloatOptions& options, SearchGoal goal = SearchGoal::model_costs);
 
   // Starts from the given statuses (one per variable, exactly `rows` basic), else from the
   // all-logical basis.
   void start_from(const std::vector<VarStatus>& statuses);
   FloatStatus solve();
+  // Another thread may set `flag` to stop the search at its next poll (FloatStatus::stopped).
+  void stop_when(const std::atomic<bool>& flag) { stop_flag_ = &flag; }
 
   const std::vector<VarStatus>& statuses() const { return status_; }
   long iterations() const { return iterations_; }
@@ -92,6 +99,7 @@ class FloatEngine {
   const int m_, n_;
   const double inf_;
 
+  const std::vector<double> goal_cost_;       // the costs minimised: the model's, or zeros
   std::vector<double> cost_, lower_, upper_;  // working copies (perturbed, shifted, boxed)
   bool costs_modified_ = false;
   std::vector<double> x_, d_;
@@ -121,6 +129,7 @@ class FloatEngine {
   int trouble_ = 0;
   int ray_variable_ = -1;
   std::string note_;
+  const std::atomic<bool>* stop_flag_ = nullptr;
   std::mt19937 random_{20261201};
   std::chrono::steady_clock::time_point last_report_ = std::chrono::steady_clock::now();
   long last_report_iteration_ = 0;

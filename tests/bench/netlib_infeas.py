@@ -66,6 +66,8 @@ def table_row(result, references):
     notes = []
     if stats.get("correction_rounds"):
         notes.append(f"{stats['correction_rounds']} correction round(s), {stats.get('correction_iterations', 0)} float iterations")
+    if stats.get("zero_cost_search"):
+        notes.append("zero-cost search")
     if stats.get("fell_back"):
         notes.append(f"fell back: exact engine {stats.get('exact_seconds', 0):.3f} s")
     if result.get("message"):

@@ -171,8 +171,9 @@ TEST_F(SolveCommand, StartBasisSavedForAnotherFileIsUsedWithAWarning) {
 // JSON figures of the run (docs/solving.md), which the benchmark reads.
 TEST_F(SolveCommand, JsonCarriesTheRunFigures) {
   auto json = nlohmann::ordered_json::parse(plumb("solve corpus/summer-blend.mps --quiet --json").stdout_text);
-  for (const char* key : {"float_seconds", "certify_seconds", "exact_seconds", "solve_seconds", "float_iterations",
-                          "exact_iterations", "repaired", "fell_back", "peak_memory_mib"})
+  for (const char* key :
+       {"float_seconds", "certify_seconds", "exact_seconds", "solve_seconds", "float_iterations",
+        "exact_iterations", "repaired", "fell_back", "zero_cost_search", "peak_memory_mib"})
     EXPECT_TRUE(json["stats"].contains(key)) << key;
   EXPECT_GT(json["stats"]["peak_memory_mib"].get<double>(), 0);
 }

@@ -67,6 +67,7 @@ struct SolveStats {
   long auxiliary_iterations = 0;   // float iterations on the least-infeasibility, feasible-point and ray LPs
   bool repaired = false;       // the starting basis was not optimal exactly: corrected or pivoted
   bool fell_back = false;      // the float phase failed and the exact engine solved from scratch
+  bool zero_cost_search = false;  // the float result came from the search on zero costs (docs/solving.md)
   std::string float_note;      // why the float phase failed, when it did
   std::string phase;           // the exact phase last run (how far a stopped solve got)
   // How the outcome was proven (docs/solving.md): "refined basis", "least infeasibility",

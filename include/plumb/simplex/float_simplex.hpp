@@ -35,6 +35,9 @@ struct FloatOptions {
   const Basis* warm_start = nullptr;          // start from this basis when given
   const CorrectionProblem* correction = nullptr;  // solve this instead of the model's bounds and costs
   std::function<void(const FloatProgress&)> progress;
+  // Also search on zero costs, on a second core when there is one, and take its proof of
+  // infeasibility when it finds one (docs/solving.md, "the zero-cost search").
+  bool feasibility_search = true;
 };
 
 struct FloatResult {
@@ -47,6 +50,7 @@ struct FloatResult {
   // variable along whose edge the objective falls without end; else -1.  Variables are numbered
   // columns first, then row logicals (column_count() + row).  A hint, never trusted.
   int ray_variable = -1;
+  bool zero_cost_search = false;  // the result is the zero-cost search's (FloatOptions::feasibility_search)
 };
 
 // Works on the model's own form: columns with bounds, one logical per row bounded by its sides.
