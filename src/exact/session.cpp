@@ -130,7 +130,7 @@ bool Session::edited() const { return state_->any_change(); }
 const model::Model& Session::current() const { return edited() ? *state_->edited : state_->original; }
 
 CertifiedSolution Session::solve(const SolveOptions& options) {
-  const simplex::Basis* last = state_->basis.empty() ? nullptr : &state_->basis;
+  const simplex::Basis* last = state_->basis.empty() ? options.search_start : &state_->basis;
   CertifiedSolution result = detail::verified_solve(current(), options, last);
   if (result.solution.outcome != Outcome::stopped && !result.solution.basis.empty()) state_->basis = result.solution.basis;
   if (result.certified() && edited()) result.certificate.extra["changes"] = state_->changes();

@@ -75,8 +75,9 @@ std::vector<SingleChange> single_changes(const model::Model& model, const std::v
     rest.objective.sense = lower ? model::Sense::maximise : model::Sense::minimise;
     exact::SolveOptions options;
     options.budget = budget;
-    // The changed models differ in one entry and the objective: the last basis is a good start.
-    if (last_basis) options.warm_start = &*last_basis;
+    // The changed models differ in one entry and the objective: the last basis is a good start
+    // for the float search (not for the exact engine: exact pivots from it took minutes).
+    if (last_basis) options.search_start = &*last_basis;
     exact::CertifiedSolution solved = exact::certified_solve(rest, options);
     if (solved.solution.outcome != exact::Outcome::stopped) last_basis = solved.solution.basis;
     change.proof = solved.certificate;

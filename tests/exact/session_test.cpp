@@ -201,6 +201,23 @@ TEST(ExactSession, ResolvingUnchangedModelStartsAtTheLastBasis) {
   EXPECT_EQ(session.solve().solution.stats.float_iterations, 0);
 }
 
+// A search start given from outside steers the float search of a fresh session (certification
+// runs as from a cold start): the first solve then needs no iteration.  The session's own last
+// basis comes first once it has one.
+TEST(ExactSession, SearchStartSteersTheFirstFloatSearch) {
+  auto model = bakery();
+  CertifiedSolution cold = certified_solve(model);
+  ASSERT_TRUE(cold.certified()) << cold.verdict.failure;
+  ASSERT_GT(cold.solution.stats.float_iterations, 0);
+  SolveOptions options;
+  options.search_start = &cold.solution.basis;
+  CertifiedSolution steered = certified_solve(model, options);
+  ASSERT_TRUE(steered.certified()) << steered.verdict.failure;
+  EXPECT_EQ(steered.solution.stats.float_iterations, 0);
+  EXPECT_EQ(steered.solution.objective, cold.solution.objective);
+  EXPECT_EQ(steered.solution.stats.proof, "refined basis");  // not the exact engine's warm start
+}
+
 TEST(ExactSession, IndexOutOfRangeThrows) {
   auto model = bakery();
   Session session(model);

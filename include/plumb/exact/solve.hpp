@@ -49,6 +49,9 @@ struct SolveOptions {
   Method method = Method::hybrid;
   run::Budget* budget = nullptr;                 // no limits when null
   const simplex::Basis* warm_start = nullptr;    // start from this basis when given
+  // The float search starts from this basis (a hint: search and certification run as from a cold
+  // start), for a model much like one solved before; a session's own last basis comes first.
+  const simplex::Basis* search_start = nullptr;
   std::function<void(const Progress&)> progress;  // called now and then when set
   // Infeasibility proven by the least-infeasibility LP, whose multipliers are few (its duals are
   // bounded by one), rather than by the float search's row of B^-1 (faster, often denser).
