@@ -104,9 +104,11 @@ std::vector<SingleChange> single_changes(const model::Model& model, const std::v
   return changes;
 }
 
-// The elastic LP: every soft side a.x >= L becomes a.x + s >= L (an upper side a.x - s <= U), every
-// soft bound likewise a row of its own, each s >= 0 costing its weight per unit (the label's, else
-// 1); hard entries stay as given.
+// The elastic LP: every soft side a.x >= L gets a column s >= 0 of its own, a.x + s >= L on the
+// row itself (an upper side a.x - s <= U), and every soft bound x >= l one that moves x: x = z - s
+// with z keeping the bound, so s takes x's column negated (x = z + s for an upper bound, the column
+// as is).  Each s costs its weight per unit (the label's, else 1); hard entries stay as given.  No
+// row is added: on greenbea a row per soft side and bound made 12 795 rows of its 2 393.
 LeastTotalChange least_total_change(const model::Model& model, run::Budget* budget) {
   detail::Entries entries(model);
   model::Model elastic = sub_problem(model);
@@ -123,24 +125,18 @@ LeastTotalChange least_total_change(const model::Model& model, run::Budget* budg
     const Member& m = entries[id];
     if (m.hard) continue;
     out.weighted = out.weighted || m.weight != 1;
-    limit_of(elastic, m.entry, m.index).reset();
     int column = elastic.column_count();
-    int row = elastic.row_count();
     elastic.columns.push_back(
         {prefix + std::to_string(relaxed.size()), Rational(0), std::nullopt, false, {}, {}, {}});
     elastic.objective.coefficients.push_back(m.weight);
-    bool lower = m.entry.limit == Limit::lower;
-    model::Row side{prefix + "-side" + std::to_string(relaxed.size()), std::nullopt, std::nullopt, {}};
-    (lower ? side.lower : side.upper) = m.value;
-    elastic.rows.push_back(std::move(side));
-    matrix.push_back({row, column, lower ? Rational(1) : Rational(-1)});
+    const Rational sign = m.entry.limit == Limit::lower ? Rational(1) : Rational(-1);
     if (m.entry.kind == EntryKind::row) {
-      auto columns = model.matrix.row_columns(m.index);
-      auto positions = model.matrix.row_positions(m.index);
-      for (std::size_t k = 0; k < columns.size(); ++k)
-        matrix.push_back({row, columns[k], model.matrix.value(positions[k])});
+      matrix.push_back({m.index, column, sign});
     } else {
-      matrix.push_back({row, m.index, Rational(1)});
+      auto rows = model.matrix.column_rows(m.index);
+      auto values = model.matrix.column_values(m.index);
+      for (std::size_t k = 0; k < rows.size(); ++k)
+        matrix.push_back({rows[k], column, Rational(-sign * values[k])});
     }
     relaxed.push_back(id);
   }
