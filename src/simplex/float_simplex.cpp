@@ -6,6 +6,7 @@
 
 #include <algorithm>
 #include <atomic>
+#include <chrono>
 #include <exception>
 #include <thread>
 
@@ -37,11 +38,11 @@ FloatResult result_of(const detail::FloatEngine& engine, const detail::LpData& l
 //    result when infeasible, so that which of the two is used never depends on timing;
 //  - the main search ends any other way: the zero-cost search is stopped, the main result used.
 FloatResult race_with_feasibility_search(detail::FloatEngine& main, const detail::LpData& lp,
-                                         const std::vector<VarStatus>* start) {
+                                         const std::vector<VarStatus>* start, run::Budget* budget) {
   FloatOptions silent;  // no budget (it is not thread-safe) and no progress: the main search has them
   detail::FloatEngine scout(lp, silent, detail::SearchGoal::feasibility);
   if (start) scout.start_from(*start);
-  std::atomic<bool> stop_main{false}, stop_scout{false};
+  std::atomic<bool> stop_main{false}, stop_scout{false}, scout_done{false};
   scout.stop_when(stop_scout);
   main.stop_when(stop_main);
   FloatStatus scout_status = FloatStatus::failed;
@@ -53,6 +54,7 @@ FloatResult race_with_feasibility_search(detail::FloatEngine& main, const detail
       scout_error = std::current_exception();
     }
     if (scout_status == FloatStatus::infeasible) stop_main.store(true);
+    scout_done.store(true);
   });
   FloatStatus main_status;
   try {
@@ -63,6 +65,11 @@ FloatResult race_with_feasibility_search(detail::FloatEngine& main, const detail
     throw;
   }
   if (main_status != FloatStatus::infeasible) stop_scout.store(true);
+  // While it waits, the caller's budget (polled here, on the thread that owns it) still binds.
+  while (!scout_done.load()) {
+    if (budget && budget->exhausted()) stop_scout.store(true);
+    std::this_thread::sleep_for(std::chrono::milliseconds(1));
+  }
   second.join();
   if (scout_error) std::rethrow_exception(scout_error);
   bool main_decided = main_status == FloatStatus::optimal || main_status == FloatStatus::unbounded;
@@ -110,7 +117,8 @@ FloatResult solve_float(const model::Model& model, const FloatOptions& options) 
   // one core the race would take the time of both.
   bool race = options.feasibility_search && !options.correction && std::thread::hardware_concurrency() >= 2 &&
               std::any_of(lp.cost.begin(), lp.cost.end(), [](double c) { return c != 0; });
-  if (race) return race_with_feasibility_search(engine, lp, statuses.empty() ? nullptr : &statuses);
+  if (race)
+    return race_with_feasibility_search(engine, lp, statuses.empty() ? nullptr : &statuses, options.budget);
   return result_of(engine, lp, engine.solve());
 }
 
