@@ -3,18 +3,14 @@
 // thread.
 #include "plumb/model/read.hpp"
 #include "plumb/simplex/float_simplex.hpp"
+#include "shared_data.hpp"
 #include "simplex/engine.hpp"
 #include "simplex/lp_data.hpp"
 
 #include <gtest/gtest.h>
 
 #include <atomic>
-#include <cstdlib>
-#include <filesystem>
-#include <string>
 #include <thread>
-
-namespace fs = std::filesystem;
 
 namespace {
 
@@ -24,9 +20,8 @@ using plumb::simplex::FloatOptions;
 using plumb::simplex::FloatStatus;
 using plumb::simplex::solve_float;
 
-void skip_on_one_core() {
-  if (std::thread::hardware_concurrency() < 2) GTEST_SKIP() << "one core: the zero-cost search does not run";
-}
+// GTEST_SKIP returns only from the function it is in, so tests call it themselves on this.
+bool one_core() { return std::thread::hardware_concurrency() < 2; }
 
 FloatOptions main_search_only() {
   FloatOptions options;
@@ -48,7 +43,7 @@ plumb::model::Model infeasible_and_dual_infeasible() {
 }
 
 TEST(ZeroCostSearch, ItsProofOfInfeasibilityIsTaken) {
-  skip_on_one_core();
+  if (one_core()) GTEST_SKIP() << "one core: the zero-cost search does not run";
   auto model = infeasible_and_dual_infeasible();
   auto raced = solve_float(model);
   EXPECT_EQ(raced.status, FloatStatus::infeasible) << raced.note;
@@ -94,14 +89,11 @@ TEST(ZeroCostSearch, ASearchStopsWhenTheOtherThreadAsks) {
 // ceria3d of the infeasible Netlib set (../shared/netlib-infeas): the zero-cost search proves it
 // infeasible in far fewer iterations than the search on its costs (850 against 2 970 here).
 TEST(NetlibZeroCostSearch, CeriaThreeDeeInFewerIterations) {
-  const fs::path file = fs::path(PLUMB_SHARED_DIR) / "netlib-infeas" / "ceria3d.mps.gz";
-  if (!fs::exists(file)) {
-    const char* ci = std::getenv("CI");
-    if (ci && std::string(ci) == "true") FAIL() << file << " is missing (CI=true)";
-    GTEST_SKIP() << "shared data file " << file << " is missing";
-  }
-  skip_on_one_core();
-  auto model = plumb::model::read_model(file.string());
+  const auto folder = plumb::test::shared_dir / "netlib-infeas";
+  if (!plumb::test::shared_folder_present(folder))
+    GTEST_SKIP() << "shared data folder " << folder << " is missing";
+  if (one_core()) GTEST_SKIP() << "one core: the zero-cost search does not run";
+  auto model = plumb::model::read_model((folder / "ceria3d.mps.gz").string());
   auto raced = solve_float(model);
   auto alone = solve_float(model, main_search_only());
   ASSERT_EQ(raced.status, FloatStatus::infeasible) << raced.note;
