@@ -86,7 +86,8 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
     proof = "refined row of the inverse";
   } else if (!start) {
     engine.start_from_logicals();
-  } else if (found && found->status != simplex::FloatStatus::optimal) {
+  } else if (found && (found->status == simplex::FloatStatus::infeasible ||
+                       found->status == simplex::FloatStatus::unbounded)) {
     repaired = engine.start_from(*start);
     if (found->status == simplex::FloatStatus::infeasible && engine.certify_infeasible_row(found->ray_variable))
       proof = "row of the inverse";
@@ -200,7 +201,10 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
     solution.stop_reason = options.budget ? options.budget->reason() : run::StopReason::interrupted;
     solution.stats.phase = "float search";
   } else if (found.status == simplex::FloatStatus::failed) {
-    solution = run_exact(model, options, nullptr);
+    // Where the search gave up is usually near an optimal basis (it failed to clean one up):
+    // refinement may still prove it, and the exact engine starts there rather than from the
+    // logical basis (gosh's ways out: minutes of exact pivots from the logical basis).
+    solution = run_exact(model, options, &found.basis, &found);
     solution.stats.fell_back = true;
     solution.stats.float_note = found.note;
   } else {

@@ -7,7 +7,9 @@
 #include <algorithm>
 #include <atomic>
 #include <chrono>
+#include <condition_variable>
 #include <exception>
+#include <mutex>
 #include <thread>
 
 namespace plumb::simplex {
@@ -42,7 +44,10 @@ FloatResult race_with_feasibility_search(detail::FloatEngine& main, const detail
   FloatOptions silent;  // no budget (it is not thread-safe) and no progress: the main search has them
   detail::FloatEngine scout(lp, silent, detail::SearchGoal::feasibility);
   if (start) scout.start_from(*start);
-  std::atomic<bool> stop_main{false}, stop_scout{false}, scout_done{false};
+  std::atomic<bool> stop_main{false}, stop_scout{false};
+  bool scout_done = false;  // guarded by `done_mutex`, announced on `done_signal`
+  std::mutex done_mutex;
+  std::condition_variable done_signal;
   scout.stop_when(stop_scout);
   main.stop_when(stop_main);
   FloatStatus scout_status = FloatStatus::failed;
@@ -54,7 +59,9 @@ FloatResult race_with_feasibility_search(detail::FloatEngine& main, const detail
       scout_error = std::current_exception();
     }
     if (scout_status == FloatStatus::infeasible) stop_main.store(true);
-    scout_done.store(true);
+    std::lock_guard lock(done_mutex);
+    scout_done = true;
+    done_signal.notify_one();
   });
   FloatStatus main_status;
   try {
@@ -66,9 +73,12 @@ FloatResult race_with_feasibility_search(detail::FloatEngine& main, const detail
   }
   if (main_status != FloatStatus::infeasible) stop_scout.store(true);
   // While it waits, the caller's budget (polled here, on the thread that owns it) still binds.
-  while (!scout_done.load()) {
-    if (budget && budget->exhausted()) stop_scout.store(true);
-    std::this_thread::sleep_for(std::chrono::milliseconds(1));
+  // Woken at once when the zero-cost search ends: a fixed sleep had cost a millisecond per solve,
+  // most of a session's re-solve of a small model.
+  {
+    std::unique_lock lock(done_mutex);
+    while (!done_signal.wait_for(lock, std::chrono::milliseconds(1), [&] { return scout_done; }))
+      if (budget && budget->exhausted()) stop_scout.store(true);
   }
   second.join();
   if (scout_error) std::rethrow_exception(scout_error);

@@ -206,7 +206,7 @@ def table_row(result, published, exact):
     elif stats.get("repaired") and not stats.get("correction_rounds"):
         notes.append("repaired")
     if stats.get("fell_back"):
-        notes.append(f"fell back: exact engine {stats.get('exact_seconds', 0):.3f} s")
+        notes.append(f"float search failed ({stats.get('float_note', '')}); exact engine from its basis {stats.get('certify_seconds', 0):.3f} s")
     if result.get("constant"):
         notes.append(f"compared without the objective constant {float(result['constant']):.12g}")
     if result["status"] == "killed":

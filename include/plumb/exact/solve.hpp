@@ -35,7 +35,8 @@ struct Progress {
 // (docs/solving.md).  Never set outside tests.
 enum class Fault {
   none,
-  float_search_fails,     // the float search reports failure: the exact engine solves from scratch
+  float_search_fails,     // the float search reports failure where it stopped: the exact engine
+                          // certifies or pivots from there
   result_corrupted,       // the solve path's result is spoiled before the check: the checker rejects
                           // it and the pure exact engine solves again
   auxiliary_not_refined,  // refinement does not certify an auxiliary LP's float basis: the exact
@@ -69,7 +70,7 @@ struct SolveStats {
   long correction_iterations = 0;  // their float iterations
   long auxiliary_iterations = 0;   // float iterations on the least-infeasibility, feasible-point and ray LPs
   bool repaired = false;       // the starting basis was not optimal exactly: corrected or pivoted
-  bool fell_back = false;      // the float phase failed and the exact engine solved from scratch
+  bool fell_back = false;      // the float phase failed; the exact engine took over from its last basis
   bool zero_cost_search = false;  // the float result came from the search on zero costs (docs/solving.md)
   std::string float_note;      // why the float phase failed, when it did
   std::string phase;           // the exact phase last run (how far a stopped solve got)
