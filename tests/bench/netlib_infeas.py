@@ -16,7 +16,6 @@ wall seconds over those.
 Python 3 standard library only.  Figures, not a test: nothing here passes or fails.
 """
 
-import csv
 import datetime
 import os
 import statistics
@@ -46,18 +45,8 @@ def infeas_folder(shared):
     sys.exit(f"netlib_infeas.py: no reference-float-seconds.csv in {folder} or {folder / 'netlib-infeas'}")
 
 
-def reference_seconds(folder):
-    with open(folder / "reference-float-seconds.csv", newline="") as table:
-        return {row["instance"]: float(row["wall_seconds"]) for row in csv.DictReader(table)}
-
-
 def proven(result):
     return result["status"] == "infeasible" and result["certified"]
-
-
-def ratio(result, references):
-    reference = references.get(result["instance"])
-    return result["total_seconds"] / reference if reference else None
 
 
 def table_row(result, references):
@@ -72,7 +61,7 @@ def table_row(result, references):
         notes.append(f"float search failed ({stats.get('float_note', '')}); exact engine from its basis {stats.get('certify_seconds', 0):.3f} s")
     if result.get("message"):
         notes.append(result["message"][0].removeprefix("plumb: ").split(";")[0])
-    value = ratio(result, references)
+    value = netlib_solve.ratio(result, references)
     cells = [result["instance"], result["status"], "yes" if result["certified"] else "no",
              netlib_solve.seconds_text(stats.get("float_seconds")), netlib_solve.seconds_text(stats.get("certify_seconds")),
              netlib_solve.seconds_text(result["total_seconds"]), str(stats.get("float_iterations", "")),
@@ -84,7 +73,7 @@ def table_row(result, references):
 def summary_line(results, references):
     total = sum(r["total_seconds"] for r in results)
     slowest = max(results, key=lambda r: r["total_seconds"], default=None)
-    ratios = [value for value in (ratio(r, references) for r in results) if value is not None]
+    ratios = [value for value in (netlib_solve.ratio(r, references) for r in results) if value is not None]
     median_seconds = statistics.median(r["total_seconds"] for r in results) if results else 0
     peak = max((r["peak_mib"] for r in results), default=0)
     slowest_text = f"{slowest['total_seconds']:.2f} s ({slowest['instance']})" if slowest else "n/a"
@@ -110,7 +99,7 @@ def section(results, references, time_limit, started, revision, load_before, loa
 def main():
     options = parse_arguments()
     folder = infeas_folder(options.shared)
-    references = reference_seconds(folder)
+    references = netlib_solve.reference_seconds(folder)
     models = netlib_solve.selected_models(folder, options.only)
     started = datetime.datetime.now(datetime.timezone.utc)
     revision = netlib_solve.git_revision()

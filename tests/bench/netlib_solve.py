@@ -9,7 +9,12 @@ SHARED is the shared data folder (holding netlib/) or the netlib folder itself; 
 ../shared beside the repository.  Each instance runs as its own `plumb solve --json` process with
 --time-limit S; the certificate it writes is then checked by `plumb check`.  Timings come from the
 "stats" object of solve's JSON and the wall clock of the solve process; peak memory is plumb's
-own high-water mark from its stats (ru_maxrss from wait4 for a run that printed none).  The table
+own high-water mark from its stats (ru_maxrss from wait4 for a run that printed none).
+reference-float-seconds.csv beside the models gives the wall seconds of a good floating-point
+dual simplex with presolve on each instance, measured on this kind of machine: the ratio is
+plumb's wall seconds over those, per instance and in total.  The floor of an instance is the wall
+time of its `plumb check` process, which reads the model and the certificate and checks it: a
+certified solve cannot take less than reading plus checking.  The table
 goes between the result markers of the output file (the rest of the file is kept); without
 markers the section is put after the file's first paragraph.
 
@@ -115,6 +120,21 @@ def last_digit_unit(text):
     return Fraction(10) ** (exponent - fraction_digits)
 
 
+def reference_seconds(folder):
+    """instance -> a good floating-point solver's wall seconds (reference-float-seconds.csv), or {}."""
+    path = folder / "reference-float-seconds.csv"
+    if not path.is_file():
+        return {}
+    with open(path, newline="") as table:
+        return {row["instance"]: float(row["wall_seconds"]) for row in csv.DictReader(table)}
+
+
+def ratio(result, references):
+    """plumb's wall seconds over the reference's, or None when the reference lists no time."""
+    reference = references.get(result["instance"])
+    return result["total_seconds"] / reference if reference else None
+
+
 def run_measured(command, stdout_path, stderr_path, kill_after):
     """Runs command with output to files; returns (exit status, wall seconds, peak MiB)."""
     with open(stdout_path, "wb") as out, open(stderr_path, "wb") as err:
@@ -162,8 +182,10 @@ def solve_instance(plumb, model, scratch, time_limit):
             result["objective"] = Fraction(answer["objective"]["fraction"])
             result["objective_decimal"] = ("~" if answer["objective"]["rounded"] else "") + answer["objective"]["decimal"]
             result["constant"] = Fraction(answer["objective_constant"]["fraction"])
+        check_started = time.monotonic()
         check = subprocess.run([plumb, "check", str(model), str(certificate), "--json"],
                                capture_output=True, text=True, stdin=subprocess.DEVNULL)
+        result["check_seconds"] = time.monotonic() - check_started
         result["certified"] = check.returncode == 0 and json.loads(check.stdout).get("valid") is True
     else:
         result["message"] = stderr_path.read_text(errors="replace").strip().splitlines()[-1:]
@@ -195,7 +217,7 @@ def seconds_text(value):
     return "" if value is None else f"{value:.4f}"
 
 
-def table_row(result, published, exact):
+def table_row(result, published, exact, references):
     stats = result.get("stats", {})
     notes = []
     if stats.get("correction_rounds"):
@@ -219,11 +241,36 @@ def table_row(result, published, exact):
     cells = [result["instance"], result["status"], "yes" if result["certified"] else "no",
              result.get("objective_decimal", ""), published or "(none)", agreement(result, published, exact),
              seconds_text(stats.get("float_seconds")), seconds_text(stats.get("certify_seconds")),
-             seconds_text(result["total_seconds"]), iterations, f"{result['peak_mib']:.0f}", "; ".join(notes)]
+             seconds_text(result["total_seconds"]), iterations, f"{result['peak_mib']:.0f}",
+             seconds_text(result.get("check_seconds")), seconds_text(references.get(result["instance"])),
+             ratio_text(ratio(result, references)), "; ".join(notes)]
     return "| " + " | ".join(cell.replace("|", "/") for cell in cells) + " |"
 
 
-def summary_line(results):
+def ratio_text(value):
+    return "" if value is None else f"{value:.1f}"
+
+
+def over_reference_bound(result, references):
+    """True when the instance took more than 3 times its reference plus 0.05 s (issue 16's bound)."""
+    reference = references.get(result["instance"])
+    return reference is not None and result["total_seconds"] > 3 * reference + 0.05
+
+
+def slowest_table(results, references, count=10):
+    """The `count` slowest instances: plumb's seconds, the reference's, the floor (plumb check)."""
+    header = ["instance", "plumb s", "reference s", "ratio", "floor s (plumb check)", "plumb / floor"]
+    lines = ["| " + " | ".join(header) + " |", "|" + "|".join("---" for _ in header) + "|"]
+    for r in sorted(results, key=lambda r: r["total_seconds"], reverse=True)[:count]:
+        floor = r.get("check_seconds")
+        cells = [r["instance"], seconds_text(r["total_seconds"]), seconds_text(references.get(r["instance"])),
+                 ratio_text(ratio(r, references)), seconds_text(floor),
+                 ratio_text(r["total_seconds"] / floor if floor else None)]
+        lines.append("| " + " | ".join(cells) + " |")
+    return lines
+
+
+def summary_line(results, references):
     certified = sum(r["certified"] for r in results)
     total = sum(r["total_seconds"] for r in results)
     # Over the certified instances whose float search found a basis (not those that fell back).
@@ -232,7 +279,15 @@ def summary_line(results):
               and not r["stats"].get("fell_back")]
     ratio = f"{statistics.median(ratios):.2f}" if ratios else "n/a"
     peak = max((r["peak_mib"] for r in results), default=0)
-    return f"certified {certified}/{len(results)}, total {total:.1f} s, median certify/float {ratio}, peak {peak:.0f} MiB"
+    compared = [r for r in results if r["instance"] in references]
+    reference_total = sum(references[r["instance"]] for r in compared)
+    plumb_compared = sum(r["total_seconds"] for r in compared)
+    total_ratio = f"{plumb_compared / reference_total:.2f}" if reference_total else "n/a"
+    over = sum(over_reference_bound(r, references) for r in results)
+    floor = sum(r.get("check_seconds", 0) for r in results)
+    return (f"certified {certified}/{len(results)}, total {total:.1f} s, reference {reference_total:.1f} s, "
+            f"ratio {total_ratio}, over 3x reference + 0.05 s: {over}, floor (plumb check) {floor:.1f} s, "
+            f"median certify/float {ratio}, peak {peak:.0f} MiB")
 
 
 def git_revision():
@@ -246,15 +301,16 @@ def git_revision():
         return "unknown revision"
 
 
-def section(results, optima, exact, time_limit, started, revision, load_before, load_after):
+def section(results, optima, exact, references, time_limit, started, revision, load_before, load_after):
     header = ["instance", "status", "certified", "objective (exact, decimal)", "published", "agrees",
-              "float s", "certify s", "total s", "iterations float + exact", "peak MiB", "notes"]
+              "float s", "certify s", "total s", "iterations float + exact", "peak MiB", "floor s",
+              "reference s", "ratio", "notes"]
     lines = [BEGIN, "",
              f"### {started:%Y-%m-%d %H:%M} UTC, revision {revision}, limit {time_limit:g} s per instance", "",
              f"Load average {load_before:.1f} at the start and {load_after:.1f} at the end "
              f"({os.cpu_count()} cores).", "",
              "| " + " | ".join(header) + " |", "|" + "|".join("---" for _ in header) + "|"]
-    lines += [table_row(r, optima.get(r["instance"], ""), exact.get(r["instance"])) for r in results]
+    lines += [table_row(r, optima.get(r["instance"], ""), exact.get(r["instance"]), references) for r in results]
     differing = [r for r in results
                  if agreement(r, optima.get(r["instance"], ""), exact.get(r["instance"])) == "no"]
     if differing:
@@ -267,7 +323,9 @@ def section(results, optima, exact, time_limit, started, revision, load_before, 
             lines.append(f"- {r['instance']}: certified {r['objective_decimal']}"
                          + (f" ({float(value):.11g} without the constant)" if r["constant"] else "")
                          + f", reference {reference}, relative difference {float(relative):.2g}")
-    lines += ["", summary_line(results), "", END]
+    lines += ["", "The ten slowest, against the reference and the floor (reading and checking):", ""]
+    lines += slowest_table(results, references)
+    lines += ["", summary_line(results, references), "", END]
     return "\n".join(lines)
 
 
@@ -295,6 +353,7 @@ def main():
     folder = netlib_folder(options.shared)
     optima = published_optima(folder)
     exact = exact_optima(folder)
+    references = reference_seconds(folder)
     models = selected_models(folder, options.only)
     started = datetime.datetime.now(datetime.timezone.utc)
     revision = git_revision()  # of the tree as the run starts
@@ -309,8 +368,9 @@ def main():
                   f"total {result['total_seconds']:7.2f} s  float {stats.get('float_seconds', 0):7.2f} s  "
                   f"certify {stats.get('certify_seconds', 0):7.2f} s  peak {result['peak_mib']:5.0f} MiB",
                   file=sys.stderr, flush=True)
-    write_section(options.output, section(results, optima, exact, options.time_limit, started, revision, load_before, os.getloadavg()[0]))
-    print(summary_line(results))
+    write_section(options.output, section(results, optima, exact, references, options.time_limit, started, revision,
+                                          load_before, os.getloadavg()[0]))
+    print(summary_line(results, references))
 
 
 if __name__ == "__main__":

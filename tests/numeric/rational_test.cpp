@@ -69,7 +69,10 @@ TEST(CanonicalFraction, StrictForm) {
   using plumb::numeric::parse_canonical_fraction;
   EXPECT_EQ(*parse_canonical_fraction("-3/2", 100), Rational(-3, 2));
   EXPECT_EQ(*parse_canonical_fraction("0", 100), Rational(0));
-  for (const char* bad : {"6/4", "-0", "01", "3/-2", "3/0", "+3", "1.5", "3/1", "", "1/2/3"})
+  EXPECT_EQ(*parse_canonical_fraction("10/3", 100), Rational(10, 3));
+  EXPECT_EQ(*parse_canonical_fraction("-100", 100), Rational(-100));
+  for (const char* bad : {"6/4", "-0", "01", "3/-2", "3/0", "+3", "1.5", "3/1", "", "1/2/3", "3/02", "0/5",
+                          "-0/5", "-4/6", "00", "-01/2"})
     EXPECT_FALSE(parse_canonical_fraction(bad, 100)) << bad;
   EXPECT_FALSE(parse_canonical_fraction("123456", 5));
 }
