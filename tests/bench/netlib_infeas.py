@@ -58,7 +58,7 @@ def table_row(result, references):
     if stats.get("zero_cost_search"):
         notes.append("zero-cost search")
     if stats.get("fell_back"):
-        notes.append(f"float search failed ({stats.get('float_note', '')}); exact engine from its basis {stats.get('certify_seconds', 0):.3f} s")
+        notes.append(netlib_solve.fell_back_note(stats))
     if result.get("message"):
         notes.append(result["message"][0].removeprefix("plumb: ").split(";")[0])
     value = netlib_solve.ratio(result, references)

@@ -217,6 +217,12 @@ def seconds_text(value):
     return "" if value is None else f"{value:.4f}"
 
 
+def fell_back_note(stats):
+    """The note of a solve whose float search failed (the exact engine took over from its basis)."""
+    return (f"float search failed ({stats.get('float_note', '')}); "
+            f"exact engine from its basis {stats.get('certify_seconds', 0):.3f} s")
+
+
 def table_row(result, published, exact, references):
     stats = result.get("stats", {})
     notes = []
@@ -228,7 +234,7 @@ def table_row(result, published, exact, references):
     elif stats.get("repaired") and not stats.get("correction_rounds"):
         notes.append("repaired")
     if stats.get("fell_back"):
-        notes.append(f"float search failed ({stats.get('float_note', '')}); exact engine from its basis {stats.get('certify_seconds', 0):.3f} s")
+        notes.append(fell_back_note(stats))
     if result.get("constant"):
         notes.append(f"compared without the objective constant {float(result['constant']):.12g}")
     if result["status"] == "killed":
