@@ -81,6 +81,11 @@ class RefinedSolver {
                                               bool transposed);
   void float_solve(const IntegerMatrix& matrix, bool transposed, long& shift);
   void subtract_product(const IntegerMatrix& matrix, const std::vector<Integer>& z, std::vector<Integer>& target);
+  // residual_ <- 2^depth residual_ - M correction_ in 128-bit integers; false (residual_ untouched)
+  // when a value does not fit, for the GMP path to do it.
+  bool step_in_machine_integers(const IntegerMatrix& matrix, long depth);
+  __extension__ using Wide = __int128;  // a GCC extension: -Wpedantic knows no 128-bit type
+  static bool to_wide(mpz_srcptr v, Wide& value);
   bool reconstruct(const IntegerMatrix& matrix, long error_bits, const Integer* seed, std::vector<Rational>& answer);
   bool prove(const IntegerMatrix& matrix, Integer common, std::vector<Rational>& answer);
   void fold_recent();
@@ -103,6 +108,7 @@ class RefinedSolver {
   Integer seed_ = 0;         // least common denominator of the last verified answer, 0 before one
   std::vector<double> work_;
   std::vector<long> exponents_;  // float_solve(): binary exponents of the residual over D
+  std::vector<Wide> wide_;       // step_in_machine_integers(): the new residual
 };
 
 }  // namespace plumb::exact::detail

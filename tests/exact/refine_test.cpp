@@ -164,6 +164,20 @@ TEST(Refine, EntriesBeyondSixtyFourBitsAreExact) {
   EXPECT_EQ(compare_routes(m, columns, b), 2);
 }
 
+TEST(Refine, RightHandSidesBeyond128BitsAreExact) {
+  // Constructed case: a right-hand side of 10^45 and more (over 150 bits), so that the integer
+  // residual does not fit the 128-bit step and GMP takes each step; beside it the same system with
+  // a short right-hand side, whose steps fit.
+  std::mt19937 random(20261204);
+  int m = 15;
+  Columns columns = random_matrix(m, 0.2, false, random);
+  std::vector<Rational> huge = random_vector(m, true, random);
+  const Rational scale(boost::multiprecision::pow(numeric::Integer(10), 45));
+  for (Rational& v : huge) v = v * scale + 1;
+  EXPECT_EQ(compare_routes(m, columns, huge), 2);
+  EXPECT_EQ(compare_routes(m, columns, random_vector(m, false, random)), 2);
+}
+
 TEST(Refine, SingularMatricesAreRefused) {
   // Two equal columns.
   Columns columns(3);
