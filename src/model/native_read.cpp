@@ -476,7 +476,9 @@ class Reader {
       } else if (times) {
         fail(peek(), "a variable or a number after '*'");
       } else {
+        const Location where = peek().where;
         form.constant += coefficient;
+        within_limits(form.constant, where);
       }
       return;
     }
@@ -494,6 +496,7 @@ class Reader {
       return;
     }
     form.terms[slot->second].second += coefficient;
+    within_limits(form.terms[slot->second].second, where);
     if (report_repeat)
       model_.warnings.push_back({where, "variable '" + shorten(model_.columns[j].name) +
                                             "' appears twice on one side; its coefficients are added"});
@@ -512,6 +515,7 @@ class Reader {
         if (operand == 0) throw InputError(divisor.where, "a division by zero", "a non-zero divisor");
         value /= operand;
       }
+      within_limits(value, operation.where);
     }
     if (at_symbol("/") && peek(1).kind != TokenKind::end && at_name(1))
       fail(peek(1), "a number after '/' (only numbers can be divided)");
@@ -541,10 +545,21 @@ class Reader {
         sign = take().text == "-" ? -1 : 1;
       else if (!first)
         break;
+      const Token& where = peek();
       value += sign * product(depth);
+      within_limits(value, where.where);
       first = false;
     }
     return value;
+  }
+
+  // Each result of constant arithmetic is held to the rule every number read obeys: without it a
+  // short line of products (1e99999 * 1e99999 * ...) had plumb multiplying for minutes.  Sums of a
+  // variable's repeated coefficients and of constants are held to it too (their denominators'
+  // least common multiple grows the same way).
+  static void within_limits(const Rational& value, const Location& where) {
+    if (!numeric::within_limits(value))
+      throw InputError(where, "constant arithmetic beyond the limit", numeric::limit_phrase());
   }
 
   // A bound value: [+|-] constant arithmetic, no variables.

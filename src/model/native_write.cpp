@@ -31,7 +31,7 @@ std::string name_text(const std::string& name) {
 }
 
 // A non-negative value as an exact decimal when it has one (58.1, 1e-30), else as p/q.
-std::string magnitude_text(const Rational& value) {
+std::string short_magnitude_text(const Rational& value) {
   Integer numerator = abs(boost::multiprecision::numerator(value));
   Integer denominator = boost::multiprecision::denominator(value);
   Integer rest = denominator;
@@ -54,6 +54,40 @@ std::string magnitude_text(const Rational& value) {
            digits.substr(static_cast<std::size_t>(before_point));
   if (before_point >= -6) return "0." + std::string(static_cast<std::size_t>(-before_point), '0') + digits;
   return digits + "e" + std::to_string(exponent);
+}
+
+// A positive integer as a parenthesised sum of chunks of its digits, c1e+K1 + c2e+K2 + ..., one
+// chunk to a continuation line.
+std::string chunked_integer(const Integer& value) {
+  constexpr std::size_t chunk_digits = 1000;
+  const std::string digits = value.str();
+  std::string text = "(";
+  for (std::size_t begin = 0; begin < digits.size();) {  // the leading chunk takes the odd digits
+    const std::size_t remaining = digits.size() - begin;
+    std::size_t end = begin + (remaining % chunk_digits == 0 ? chunk_digits : remaining % chunk_digits);
+    std::size_t first = digits.find_first_not_of('0', begin);
+    if (first < end) {
+      if (text.size() > 1) text += "\n    + ";
+      text += digits.substr(first, end - first) + "e" + std::to_string(digits.size() - end);
+    }
+    begin = end;
+  }
+  return text + ")";
+}
+
+// A non-negative value, exactly.  Constant arithmetic makes values whose exact text has no bound
+// (1 - 2e-86784 has 86 784 digits) while the format's lines hold at most 65 536 characters: such a
+// value is written as arithmetic the reader evaluates back to it, (numerator chunks) / (denominator
+// chunks), over continuation lines.
+std::string magnitude_text(const Rational& value) {
+  constexpr std::size_t longest_on_one_line = 4096;
+  std::string text = short_magnitude_text(value);
+  if (text.size() <= longest_on_one_line) return text;
+  Integer numerator = abs(boost::multiprecision::numerator(value));
+  Integer denominator = boost::multiprecision::denominator(value);
+  text = "(" + chunked_integer(numerator);
+  if (denominator != 1) text += "\n    / " + chunked_integer(denominator);
+  return text + ")";
 }
 
 std::string number_text(const Rational& value) { return (value < 0 ? "-" : "") + magnitude_text(value); }

@@ -36,7 +36,17 @@ std::string write_checked(const Model& model, Format format) {
     write_native(model, text);
   ReadOptions read;
   read.format = format;
-  Model back = read_model_text(text.str(), model.source.path, read);
+  // A value can be too long for any line of the format (constant arithmetic in the native format
+  // makes numbers of any length; MPS has no way to write them): refused, naming the written text,
+  // not the model's own file.
+  const std::string format_name = format == Format::mps ? "MPS" : "the native format";
+  Model back;
+  try {
+    back = read_model_text(text.str(), "written " + format_name, read);
+  } catch (const InputError& error) {
+    throw RoundTripError("the model cannot be written in " + format_name + " so that it reads back (" +
+                         error.what() + "); nothing was written");
+  }
   bool same = format == Format::native ? back.same_content(model)
                                        : without_labels(back).same_content(without_labels(model));
   if (!same)

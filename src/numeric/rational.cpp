@@ -15,20 +15,6 @@ Integer power_of_ten(long exponent) {
   return result;
 }
 
-// The rule of max_decimal_exponent: numerator and denominator in lowest terms at most
-// 10^max_decimal_exponent.  It bounds the value itself, not its text, so every accepted number
-// reads back from any exact rendering of it (decimal or p/q).
-bool within_limits(const Rational& value) {
-  static const Integer bound = power_of_ten(max_decimal_exponent);
-  return mpz_cmpabs(mpq_numref(value.backend().data()), bound.backend().data()) <= 0 &&
-         mpz_cmp(mpq_denref(value.backend().data()), bound.backend().data()) <= 0;
-}
-
-std::string limit_phrase() {
-  const std::string limit = std::to_string(max_decimal_exponent);
-  return "an exponent of at most " + limit + " (numerator and denominator in lowest terms at most 1e" + limit + ")";
-}
-
 std::optional<Rational> fail(ParseFailure* why, std::string reason) {
   if (why) why->reason = std::move(reason);
   return std::nullopt;
@@ -93,6 +79,20 @@ std::optional<Rational> parse_number(std::string_view text, ParseFailure* why) {
 
 std::string to_fraction(const Rational& value) {
   return value.str();  // GMP keeps mpq canonical: "p" or "p/q", q > 0, lowest terms
+}
+
+// It bounds the value itself, not its text, so every accepted number reads back from any exact
+// rendering of it (decimal or p/q).
+bool within_limits(const Rational& value) {
+  static const Integer bound = power_of_ten(max_decimal_exponent);
+  return mpz_cmpabs(mpq_numref(value.backend().data()), bound.backend().data()) <= 0 &&
+         mpz_cmp(mpq_denref(value.backend().data()), bound.backend().data()) <= 0;
+}
+
+std::string limit_phrase() {
+  const std::string limit = std::to_string(max_decimal_exponent);
+  return "an exponent of at most " + limit + " (numerator and denominator in lowest terms at most 1e" +
+         limit + ")";
 }
 
 std::optional<Rational> parse_canonical_fraction(std::string_view text, std::size_t max_digits,

@@ -7,6 +7,7 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
@@ -307,6 +308,8 @@ TEST(NativeFormatErrors, BadFiles) {
       {"bad-reserved-name.plumb", 1, 10, "the reserved word 'free'"},
       {"bad-escape.plumb", 1, 25, "the escape '\\q'"},
       {"bad-division-by-zero.plumb", 2, 24, "division by zero"},
+      {"bad-arithmetic-beyond-limit.plumb", 2, 22, "constant arithmetic beyond the limit"},
+      {"bad-repeated-coefficients-beyond-limit.plumb", 2, 51, "constant arithmetic beyond the limit"},
       {"bad-number-run-into-name.plumb", 2, 17, "found '2x'"},
       {"bad-relation-in-objective.plumb", 2, 20, "an objective has no relation"},
       {"bad-variable-in-outer-part.plumb", 3, 20, "a variable outside the two relations"},
@@ -337,6 +340,27 @@ TEST(NativeFormatErrors, NeverHalfReadsTruncatedText) {
     }
   }
   EXPECT_NO_THROW(parse(text));
+}
+
+// Constant arithmetic makes a coefficient of 86 784 digits (1 - 2e-86784) from a short line; its
+// text is longer than any line may be.  The native writer writes it as arithmetic over
+// continuation lines that reads back to it exactly; MPS cannot hold it, and says so without
+// naming the model's own file.
+TEST(NativeRoundTrip, ValuesLongerThanALineSurviveTheWriter) {
+  Model m = parse("variable x\nconstraint cap: x <= 2/(1e+86784)x\n");
+  std::string text = plumb::model::write_checked(m, plumb::model::Format::native);
+  std::istringstream lines(text);
+  std::size_t longest = 0;
+  for (std::string line; std::getline(lines, line);) longest = std::max(longest, line.size());
+  EXPECT_LE(longest, 1100u);
+  EXPECT_TRUE(parse(text).same_content(m));
+  try {
+    plumb::model::write_checked(m, plumb::model::Format::mps);
+    FAIL() << "expected a refusal";
+  } catch (const plumb::model::RoundTripError& e) {
+    EXPECT_NE(std::string(e.what()).find("cannot be written in MPS"), std::string::npos) << e.what();
+    EXPECT_NE(std::string(e.what()).find("written MPS:"), std::string::npos) << e.what();
+  }
 }
 
 TEST(NativeRoundTrip, EveryConstructSurvivesTheWriter) {

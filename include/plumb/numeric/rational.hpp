@@ -28,6 +28,12 @@ std::optional<Rational> parse_decimal(std::string_view text, ParseFailure* why =
 // A decimal as above, or a fraction "p/q" of two decimals (q != 0), as the native format allows.
 std::optional<Rational> parse_number(std::string_view text, ParseFailure* why = nullptr);
 
+// The rule of max_decimal_exponent: numerator and denominator in lowest terms at most
+// 10^max_decimal_exponent (readers that compute values, such as the native format's constant
+// arithmetic, hold each result to it); limit_phrase() words it for "expected ...".
+bool within_limits(const Rational& value);
+std::string limit_phrase();
+
 // Canonical fraction text "-?[0-9]+(/[0-9]+)?": lowest terms, positive denominator.
 std::string to_fraction(const Rational& value);
 
