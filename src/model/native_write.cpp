@@ -30,7 +30,18 @@ std::string name_text(const std::string& name) {
   return detail::is_plain_name(name) ? name : "'" + escaped(name, '\'') + "'";
 }
 
-// A non-negative value as an exact decimal when it has one (58.1, 1e-30), else as p/q.
+// A non-negative integer, its trailing zeros as an exponent when there are more than six (3e99999).
+std::string integer_text(const Integer& value) {
+  std::string digits = value.str();
+  std::size_t zeros = 0;
+  while (zeros + 1 < digits.size() && digits[digits.size() - 1 - zeros] == '0') ++zeros;
+  if (zeros <= 6) return digits;
+  return digits.substr(0, digits.size() - zeros) + "e" + std::to_string(zeros);
+}
+
+// A non-negative value as an exact decimal when it has one (58.1, 1e-30), else as p/q (1/3e99999).
+// As long as the number that was read, whatever its value: a single number of the file fits its
+// line, and so does this.
 std::string short_magnitude_text(const Rational& value) {
   Integer numerator = abs(boost::multiprecision::numerator(value));
   Integer denominator = boost::multiprecision::denominator(value);
@@ -38,7 +49,10 @@ std::string short_magnitude_text(const Rational& value) {
   long twos = 0, fives = 0;
   while (rest % 2 == 0) rest /= 2, ++twos;
   while (rest % 5 == 0) rest /= 5, ++fives;
-  if (rest != 1) return numeric::to_fraction(abs(value));
+  std::string fraction = integer_text(numerator) + "/" + integer_text(denominator);
+  if (rest != 1) return fraction;
+  // The decimal is easier to read, unless far longer: 1/2^k has a decimal of 0.7 k digits.
+  if (twos > 3 * fives + 64) return fraction;
   long places = std::max(twos, fives);
   Integer ten_power;
   mpz_ui_pow_ui(ten_power.backend().data(), 10, static_cast<unsigned long>(places));
@@ -134,7 +148,8 @@ void add_label(std::vector<std::string>& pieces, const Label& label) {
                                      ? label.group
                                      : "\"" + escaped(label.group, '"') + "\""));
   if (label.hard) pieces.push_back(*label.hard ? "hard" : "soft");
-  if (label.weight) pieces.push_back("weight " + number_text(*label.weight));
+  if (label.weight)
+    pieces.push_back("weight " + short_magnitude_text(*label.weight));  // a number, never arithmetic
   add_decision(pieces, label.decision, label.source, label.owner);
 }
 

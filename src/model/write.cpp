@@ -42,7 +42,7 @@ std::string write_checked(const Model& model, Format format) {
   const std::string format_name = format == Format::mps ? "MPS" : "the native format";
   Model back;
   try {
-    back = read_model_text(text.str(), "written " + format_name, read);
+    back = read_model_text(text.str(), format == Format::mps ? "written MPS" : "written native text", read);
   } catch (const InputError& error) {
     throw RoundTripError("the model cannot be written in " + format_name + " so that it reads back (" +
                          error.what() + "); nothing was written");

@@ -354,6 +354,10 @@ TEST(NativeRoundTrip, ValuesLongerThanALineSurviveTheWriter) {
   for (std::string line; std::getline(lines, line);) longest = std::max(longest, line.size());
   EXPECT_LE(longest, 1100u);
   EXPECT_TRUE(parse(text).same_content(m));
+  // A weight is a single number, never arithmetic: 1/(3 x 10^99999) is written as it can be read.
+  Model weighted = parse("variable x\nconstraint c soft weight 1/3e99999: x <= 1\n");
+  std::string weighted_text = plumb::model::write_checked(weighted, plumb::model::Format::native);
+  EXPECT_NE(weighted_text.find("weight 1/3e99999:"), std::string::npos) << weighted_text.substr(0, 200);
   try {
     plumb::model::write_checked(m, plumb::model::Format::mps);
     FAIL() << "expected a refusal";
