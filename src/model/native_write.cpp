@@ -53,10 +53,9 @@ std::string short_magnitude_text(const Rational& value) {
   const Integer five = 5;
   const long fives =
       static_cast<long>(mpz_remove(rest.backend().data(), rest.backend().data(), five.backend().data()));
-  std::string fraction = integer_text(numerator) + "/" + integer_text(denominator);
-  if (rest != 1) return fraction;
-  // The decimal is easier to read, unless far longer: 1/2^k has a decimal of 0.7 k digits.
-  if (twos > 3 * fives + 64) return fraction;
+  // No decimal, or one far longer than the fraction (1/2^k has a decimal of 0.7 k digits); else the
+  // decimal, easier to read.
+  if (rest != 1 || twos > 3 * fives + 64) return integer_text(numerator) + "/" + integer_text(denominator);
   long places = std::max(twos, fives);
   Integer ten_power;
   mpz_ui_pow_ui(ten_power.backend().data(), 10, static_cast<unsigned long>(places));
