@@ -56,17 +56,21 @@ std::vector<Rational> dense(const Model& m, const NamedValues& values, Kind kind
 // per term: thousands of digits each at bases with long determinants.)
 using numeric::CommonDenominator;
 using numeric::over_common_denominator;
+using numeric::ProductSum;
 
 const Integer unscaled = 1;
 
 std::vector<Rational> times(const Model& m, const std::vector<Rational>& x) {  // A x
-  std::vector<Rational> out(static_cast<std::size_t>(m.row_count()));
+  std::vector<ProductSum> sums(static_cast<std::size_t>(m.row_count()));
   for (int j = 0; j < m.column_count(); ++j) {
     if (x[j] == 0) continue;
     auto rows = m.matrix.column_rows(j);
     auto values = m.matrix.column_values(j);
-    for (std::size_t k = 0; k < rows.size(); ++k) out[rows[k]] += values[k] * x[j];
+    for (std::size_t k = 0; k < rows.size(); ++k) sums[rows[k]].add(values[k], x[j]);
   }
+  std::vector<Rational> out;
+  out.reserve(sums.size());
+  for (const auto& sum : sums) out.push_back(sum.value());
   return out;
 }
 
@@ -75,8 +79,9 @@ std::vector<Rational> transpose_times(const Model& m, const std::vector<Rational
   for (int j = 0; j < m.column_count(); ++j) {
     auto rows = m.matrix.column_rows(j);
     auto values = m.matrix.column_values(j);
-    for (std::size_t k = 0; k < rows.size(); ++k)
-      if (y[rows[k]] != 0) out[j] += values[k] * y[rows[k]];
+    ProductSum sum;
+    for (std::size_t k = 0; k < rows.size(); ++k) sum.add(values[k], y[rows[k]]);
+    out[j] = sum.value();
   }
   return out;
 }
@@ -89,10 +94,10 @@ Rational min_cost(const Model& m, int j) {
 
 // c'.v for v held as N / L.
 Rational min_cost_dot(const Model& m, const CommonDenominator& v) {
-  Rational sum = 0;
-  for (int j = 0; j < m.column_count(); ++j)
-    if (v.numerators[j] != 0) sum += min_cost(m, j) * v.numerators[j];
-  return sum / v.denominator;
+  ProductSum sum;
+  for (int j = 0; j < m.column_count(); ++j) sum.add(m.objective.coefficients[j], v.numerators[j]);
+  Rational dot = sum.value() / v.denominator;
+  return m.objective.sense == model::Sense::maximise ? Rational(-dot) : dot;
 }
 
 // w times the side its sign presses on; the sign rules have made sure that side is finite.

@@ -6,38 +6,65 @@
 
 namespace plumb::simplex::detail {
 
+namespace {
+
+double ratio(const DualCandidate& c) { return c.slack / c.rate; }
+
+double relaxed_ratio(const DualCandidate& c, double dual_tolerance) {
+  return (std::max(c.slack, 0.0) + dual_tolerance) / c.rate;
+}
+
+}  // namespace
+
 DualStep dual_ratio_test(std::vector<DualCandidate>& candidates, double slope, double dual_tolerance,
                          double primal_tolerance) {
-  constexpr double infinity = std::numeric_limits<double>::infinity();
   DualStep result;
-  auto remaining_begin = candidates.begin();
-  while (remaining_begin != candidates.end()) {
-    // Harris bound over the remaining breakpoints.
-    double bound = infinity;
-    for (auto it = remaining_begin; it != candidates.end(); ++it)
-      bound = std::min(bound, (std::max(it->slack, 0.0) + dual_tolerance) / it->rate);
-    // The group of breakpoints at or below it goes to the front of the remaining range.
-    auto group_end = std::partition(remaining_begin, candidates.end(),
-                                    [&](const DualCandidate& c) { return c.slack / c.rate <= bound; });
-    double slope_after = slope;
-    for (auto it = remaining_begin; it != group_end; ++it) slope_after -= it->rate * it->range;
-    if (slope_after > 0 && group_end != candidates.end()) {
-      for (auto it = remaining_begin; it != group_end; ++it) result.flips.push_back(it->variable);
-      slope = slope_after;
-      remaining_begin = group_end;
-      continue;
-    }
-    if (slope_after > primal_tolerance) {
-      // Every breakpoint can be passed and the slope stays positive: the dual is unbounded.
-      return DualStep{};
-    }
-    auto best = std::max_element(remaining_begin, group_end,
-                                 [](const DualCandidate& a, const DualCandidate& b) { return a.rate < b.rate; });
+  // The Harris group [first, last) leaves `slope_after`: the step is unbounded when every
+  // breakpoint is passed with the slope still positive, else the largest rate in it enters.
+  auto last_group = [&](auto first, auto last, double slope_after) {
+    if (slope_after > primal_tolerance) return DualStep{};
+    auto best = std::max_element(
+        first, last, [](const DualCandidate& a, const DualCandidate& b) { return a.rate < b.rate; });
     result.entering = best->variable;
-    result.step = best->slack / best->rate;
-    return result;
+    result.step = ratio(*best);
+    return std::move(result);
+  };
+  auto passed = [&](auto first, auto last) {
+    double slope_after = slope;
+    for (auto it = first; it != last; ++it) slope_after -= it->rate * it->range;
+    return slope_after;
+  };
+  // The first group in two passes over the candidates: the step usually ends in it.
+  double bound = std::numeric_limits<double>::infinity();
+  for (const auto& c : candidates) bound = std::min(bound, relaxed_ratio(c, dual_tolerance));
+  auto group_end = std::partition(candidates.begin(), candidates.end(),
+                                  [&](const DualCandidate& c) { return ratio(c) <= bound; });
+  double slope_after = passed(candidates.begin(), group_end);
+  if (!(slope_after > 0 && group_end != candidates.end()))
+    return last_group(candidates.begin(), group_end, slope_after);
+  // Groups are passed: sort the rest by ratio once.  A relaxed ratio exceeds its ratio, so each
+  // later group is the next run of that order up to the least relaxed ratio still ahead (a suffix
+  // minimum): one pass in all, where recomputing the bound per group was quadratic in the
+  // number of groups (thousands on models with many boxed columns).
+  for (auto it = candidates.begin(); it != group_end; ++it) result.flips.push_back(it->variable);
+  slope = slope_after;
+  std::sort(group_end, candidates.end(),
+            [](const DualCandidate& a, const DualCandidate& b) { return ratio(a) < ratio(b); });
+  std::vector<double> least_relaxed_ahead(static_cast<std::size_t>(candidates.end() - group_end));
+  double least = std::numeric_limits<double>::infinity();
+  for (auto i = least_relaxed_ahead.size(); i-- > 0;)
+    least_relaxed_ahead[i] = least =
+        std::min(least, relaxed_ratio(group_end[static_cast<std::ptrdiff_t>(i)], dual_tolerance));
+  for (auto first = group_end;;) {
+    bound = least_relaxed_ahead[static_cast<std::size_t>(first - group_end)];
+    auto last = first;
+    while (last != candidates.end() && ratio(*last) <= bound) ++last;
+    slope_after = passed(first, last);
+    if (!(slope_after > 0 && last != candidates.end())) return last_group(first, last, slope_after);
+    for (auto it = first; it != last; ++it) result.flips.push_back(it->variable);
+    slope = slope_after;
+    first = last;
   }
-  return DualStep{};
 }
 
 PrimalStep primal_ratio_test(const std::vector<PrimalCandidate>& candidates, double primal_tolerance) {

@@ -2,6 +2,10 @@
 
 #include <gtest/gtest.h>
 
+#include <string>
+#include <utility>
+#include <vector>
+
 using plumb::numeric::Rational;
 using plumb::numeric::parse_decimal;
 using plumb::numeric::parse_number;
@@ -20,6 +24,41 @@ TEST(ParseDecimal, ExactValues) {
   EXPECT_EQ(*parse_decimal("0.1234567890123456789012345678901234567891"),
             Rational(plumb::numeric::Integer("1234567890123456789012345678901234567891"),
                      plumb::numeric::Integer("10000000000000000000000000000000000000000")));
+}
+
+// Around the edge of the machine-integer reading (18 significant digits, powers of ten up to 18
+// either way), each value in lowest terms, as GMP prints it (the value alone would compare equal
+// even when not reduced).
+TEST(ParseDecimal, ShortAndLongReadingsAgreeAtTheirBoundary) {
+  const std::vector<std::pair<const char*, const char*>> cases = {
+      {"999999999999999999", "999999999999999999"},
+      {"9999999999999999999", "9999999999999999999"},
+      {"1e18", "1000000000000000000"},
+      {"1e19", "10000000000000000000"},
+      {"-12.5e17", "-1250000000000000000"},
+      {"0.000000000000000001", "1/1000000000000000000"},
+      {"1e-19", "1/10000000000000000000"},
+      {"-0.062500", "-1/16"},
+      {"123456789.123456789", "123456789123456789/1000000000"},
+      {"00000000000000000000000.75", "3/4"}};
+  for (const auto& [text, fraction] : cases)
+    EXPECT_EQ(plumb::numeric::to_fraction(*parse_decimal(text)), fraction) << text;
+}
+
+TEST(ProductSum, EqualsTheSumOfProductsInLowestTerms) {
+  const Rational long_integer(plumb::numeric::Integer("123456789012345678901234567890123456789"));
+  const std::vector<std::pair<Rational, Rational>> terms = {
+      {Rational(3), Rational(7)},         {Rational(1, 10), long_integer}, {Rational(-7, 6), Rational(5, 4)},
+      {Rational(0), Rational(9, 11)},     {Rational(2, 3), Rational(0)},   {Rational(1, 6), Rational(-1, 3)},
+      {Rational(-3, 1000), long_integer}, {Rational(5, 2), Rational(2, 5)}};
+  plumb::numeric::ProductSum sum;
+  Rational expected = 0;
+  for (const auto& [a, b] : terms) {
+    sum.add(a, b);
+    expected += a * b;
+    EXPECT_EQ(plumb::numeric::to_fraction(sum.value()), plumb::numeric::to_fraction(expected));
+  }
+  EXPECT_EQ(plumb::numeric::ProductSum().value(), Rational(0));
 }
 
 TEST(ParseDecimal, RefusesWhatIsNotANumber) {

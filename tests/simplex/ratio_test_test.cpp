@@ -92,6 +92,18 @@ TEST(DualRatioTest, PassesSeveralBoxedBreakpointsInRatioOrder) {
   EXPECT_DOUBLE_EQ(step.step, 3.0);
 }
 
+// After a group is passed, the next group is still a Harris group (Harris 1973; Koberstein 2005,
+// algorithm 7): breakpoints 2 and 2.00005 lie within the tolerance-relaxed bound 2.0001 of the
+// small-rate one, and the larger rate enters, not the smaller ratio.
+TEST(DualRatioTest, AfterPassingAGroupTheNextIsAHarrisGroupToo) {
+  std::vector<DualCandidate> candidates = {
+      {4, 5.0, 1.0, infinity}, {3, 2.00005, 1.0, infinity}, {2, 0.002, 0.001, infinity}, {1, 1.0, 1.0, 1.0}};
+  auto step = dual_ratio_test(candidates, 1.5, tolerance, tolerance);
+  EXPECT_EQ(step.entering, 3);
+  EXPECT_EQ(step.flips, std::vector<int>{1});
+  EXPECT_DOUBLE_EQ(step.step, 2.00005);
+}
+
 // A free nonbasic variable (infinite range) can never be passed: it enters at its breakpoint
 // even when the slope would allow more.
 TEST(DualRatioTest, AFreeVariableIsNeverPassed) {

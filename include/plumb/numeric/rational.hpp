@@ -70,6 +70,21 @@ struct CommonDenominator {
 };
 CommonDenominator over_common_denominator(const std::vector<Rational>& v);
 
+// A sum of products a * b kept as N / L with L a common multiple of the products' denominators:
+// adding a term costs multiplications and a divisibility test, and only value() takes a gcd.
+// Summing Rationals directly took two gcds per term, most of a certificate check's sums.
+class ProductSum {
+ public:
+  void add(const Rational& a, const Rational& b);
+  Rational value() const;
+
+ private:
+  Integer numerator_ = 0;
+  Integer denominator_ = 1;
+  Integer product_;  // scratch, kept to reuse its allocation
+  Integer product_denominator_;
+};
+
 // A double within one ulp (rounded to nearest when numerator and denominator are below 2^53, else
 // truncated by GMP), for floating-point search and filters only: never for a decision on its own.
 double to_double(const Rational& value);
