@@ -100,11 +100,10 @@ Rational min_cost_dot(const Model& m, const CommonDenominator& v) {
   return m.objective.sense == model::Sense::maximise ? Rational(-dot) : dot;
 }
 
-// w times the side its sign presses on; the sign rules have made sure that side is finite.
-Rational pressed(const Rational& w, const Side& when_positive, const Side& when_negative) {
-  if (w > 0) return w * *when_positive;
-  if (w < 0) return w * *when_negative;
-  return 0;
+// Adds w times the side its sign presses on; the sign rules have made sure that side is finite.
+void add_pressed(ProductSum& sum, const Rational& w, const Side& when_positive, const Side& when_negative) {
+  if (w > 0) sum.add(w, *when_positive);
+  if (w < 0) sum.add(w, *when_negative);
 }
 
 // In the require_ functions the quantity is w / scale.  `what` names the row or column; it is
@@ -171,11 +170,11 @@ Verdict verify_optimal(const Model& m, const Certificate& c, const detail::Objec
   CommonDenominator scaled_x = require_feasible(m, x);
   CommonDenominator scaled_y = over_common_denominator(y);
   const Integer& scale = scaled_y.denominator;
-  Rational bound = 0;  // weak duality: c'.x >= bound / scale for every feasible x
+  ProductSum scaled_bound;  // weak duality: c'.x >= bound = scaled_bound / scale for every feasible x
   for (int i = 0; i < m.row_count(); ++i) {
     const model::Row& row = m.rows[i];
     require_sign(row_text(m, i), "multiplier y", y[i], unscaled, row.lower, "lower side", row.upper, "upper side");
-    bound += pressed(scaled_y.numerators[i], row.lower, row.upper);
+    add_pressed(scaled_bound, scaled_y.numerators[i], row.lower, row.upper);
   }
   std::vector<Rational> aty = transpose_times(m, scaled_y.numerators);
   for (int j = 0; j < m.column_count(); ++j) {
@@ -183,9 +182,9 @@ Verdict verify_optimal(const Model& m, const Certificate& c, const detail::Objec
     Rational d = min_cost(m, j) * scale - aty[j];
     require_sign(column_text(m, j), "reduced cost d = c' - A^T y", d, scale, column.lower, "lower bound",
                  column.upper, "upper bound");
-    bound += pressed(d, column.lower, column.upper);
+    add_pressed(scaled_bound, d, column.lower, column.upper);
   }
-  bound /= scale;
+  Rational bound = scaled_bound.value() / scale;
   Rational cost = min_cost_dot(m, scaled_x);
   if (bound != cost)
     throw Failure{"x is not proven optimal: the dual bound " + amount(objective.from_min_form(bound)) +
@@ -205,22 +204,22 @@ Verdict verify_infeasible(const Model& m, const Certificate& c) {
   std::vector<Rational> y = dense(m, c.y, Kind::row, "y");
   CommonDenominator scaled_y = over_common_denominator(y);
   const Integer& scale = scaled_y.denominator;
-  Rational rows_force = 0;  // every x meeting the rows has y.Ax >= rows_force / scale
+  ProductSum scaled_rows_force;  // every x meeting the rows has y.Ax >= rows_force
   for (int i = 0; i < m.row_count(); ++i) {
     const model::Row& row = m.rows[i];
     require_sign(row_text(m, i), "Farkas multiplier y", y[i], unscaled, row.lower, "lower side", row.upper,
                  "upper side");
-    rows_force += pressed(scaled_y.numerators[i], row.lower, row.upper);
+    add_pressed(scaled_rows_force, scaled_y.numerators[i], row.lower, row.upper);
   }
   std::vector<Rational> a = transpose_times(m, scaled_y.numerators);
-  Rational bounds_allow = 0;  // every x within its bounds has y.Ax = a.x <= bounds_allow / scale
+  ProductSum scaled_bounds_allow;  // every x within its bounds has y.Ax = a.x <= bounds_allow
   for (int j = 0; j < m.column_count(); ++j) {
     const model::Column& column = m.columns[j];
     require_sign(column_text(m, j), "(A^T y)", a[j], scale, column.upper, "upper bound", column.lower, "lower bound");
-    bounds_allow += pressed(a[j], column.upper, column.lower);
+    add_pressed(scaled_bounds_allow, a[j], column.upper, column.lower);
   }
-  rows_force /= scale;
-  bounds_allow /= scale;
+  Rational rows_force = scaled_rows_force.value() / scale;
+  Rational bounds_allow = scaled_bounds_allow.value() / scale;
   if (rows_force <= bounds_allow)
     throw Failure{"no contradiction: the rows weighted by y force y.Ax >= " + amount(rows_force) +
                   ", but the bounds let y.Ax reach " + amount(bounds_allow) +
