@@ -152,6 +152,7 @@ struct RowState {
   long rhs_line = 0;
   std::optional<Rational> range;
   long range_line = 0;
+  long range_column = 0;  // of the range's value, for a side it puts beyond the limit
   int last_column = -1;  // the column whose entry this row saw last, for duplicate checks
   long last_entry_line = 0;
 };
@@ -605,6 +606,7 @@ void Reader::read_rhs_or_ranges_line(std::string_view line, const FreeTokens& to
           state.range_line, row_name, [&] { return "RANGES entry for row " + quoted(row_name.text); },
           "one range per row");
       state.range = std::move(value);
+      state.range_column = entry.value[p].column;
       continue;
     }
     if (row == dropped_row) continue;
@@ -772,6 +774,14 @@ Model Reader::build() {
           row.upper = rhs;
         }
     }
+    // The right-hand side and the range each obey the limit on numbers; the side they add up to
+    // must too, or the model could not be written so that it reads back.
+    for (const Side& side : {row.lower, row.upper})
+      if (state.range && side && !numeric::within_limits(*side))
+        throw InputError({cursor_.file(), state.range_line, state.range_column},
+                         "a range that puts a side of row " + quoted(state.name) + " at " +
+                             numeric::to_decimal(*side, 3).text,
+                         numeric::limit_phrase());
     model_.rows.push_back(std::move(row));
   }
   model_.matrix = Matrix::from_entries(model_.row_count(), model_.column_count(), std::move(entries_));

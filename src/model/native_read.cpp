@@ -267,6 +267,7 @@ class Reader {
     }
     for (auto& [j, value] : right.terms) add_term(left, j, -value, right.where, false);
     Rational limit = right.constant - left.constant;
+    within_limits(limit, relation.where);  // each side's constant obeys it, their difference need not
     if (relation.text != ">=") row.upper = limit;
     if (relation.text != "<=") row.lower = limit;
     return left;
@@ -291,8 +292,13 @@ class Reader {
     if (low.infinity > 0) throw InputError(low.where, "'infinity' as a lower limit", "a number or -infinity");
     if (high.infinity < 0)
       throw InputError(high.where, "'-infinity' as an upper limit", "a number or infinity");
-    if (low.infinity == 0) row.lower = low.constant - middle.constant;
-    if (high.infinity == 0) row.upper = high.constant - middle.constant;
+    auto limit = [&](const LinearForm& outer, const Token& relation) {
+      Rational value = outer.constant - middle.constant;
+      within_limits(value, relation.where);
+      return value;
+    };
+    if (low.infinity == 0) row.lower = limit(low, relations[less ? 0 : 1]);
+    if (high.infinity == 0) row.upper = limit(high, relations[less ? 1 : 0]);
     return middle;
   }
 

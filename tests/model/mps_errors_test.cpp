@@ -40,6 +40,8 @@ const plumb::test::BadInput bad_files[] = {
     {"extra-text-on-section-line.mps", 11, 6, "\"EXTRA\" after RHS"},
     {"hex-number.mps", 14, 28, "\"0x10\" as a range"},
     {"huge-exponent.mps", 14, 28, "\"1e99999999\" as a bound, expected an exponent of at most"},
+    {"range-side-beyond-limit.mps", 11, 28,
+     "a range that puts a side of row \"LIM\" at 1.8e+100000, expected an exponent of at most"},
     {"infinite-value.mps", 12, 28, "\"Infinity\" as a right-hand side"},
     {"intend-without-intorg.mps", 10, 40, "'INTEND' without an open 'INTORG'"},
     {"marker-not-closed.mps", 12, 1, "'INTORG' marker on line 10 is open"},

@@ -310,6 +310,8 @@ TEST(NativeFormatErrors, BadFiles) {
       {"bad-division-by-zero.plumb", 2, 24, "division by zero"},
       {"bad-arithmetic-beyond-limit.plumb", 2, 22, "constant arithmetic beyond the limit"},
       {"bad-repeated-coefficients-beyond-limit.plumb", 2, 51, "constant arithmetic beyond the limit"},
+      {"bad-side-beyond-limit.plumb", 2, 35, "constant arithmetic beyond the limit"},
+      {"bad-two-sided-beyond-limit.plumb", 2, 19, "constant arithmetic beyond the limit"},
       {"bad-number-run-into-name.plumb", 2, 17, "found '2x'"},
       {"bad-relation-in-objective.plumb", 2, 20, "an objective has no relation"},
       {"bad-variable-in-outer-part.plumb", 3, 20, "a variable outside the two relations"},
