@@ -1,4 +1,5 @@
 // MPS writer, free form: every number exact, and the reader gets the same model back (docs/mps.md).
+#include "number_text.hpp"
 #include "plumb/model/write.hpp"
 
 #include <algorithm>
@@ -23,24 +24,12 @@ const std::string& checked_name(const std::string& name, const char* kind) {
   return name;
 }
 
-// The exact decimal text of a value whose denominator has no prime factors but 2 and 5.
+// The exact decimal text of a value whose denominator has no prime factors but 2 and 5, trailing
+// zeros as an exponent: as long as the number that was read, so the line fits the reader's limit.
 std::string exact_decimal(const Rational& value, const std::string& what) {
-  const numeric::Integer& denominator = boost::multiprecision::denominator(value);
-  std::size_t digits_after_point = 0;
-  numeric::Integer rest = denominator;
-  for (int factor : {2, 5}) {
-    std::size_t count = 0;
-    while (rest % factor == 0) rest /= factor, ++count;
-    digits_after_point = std::max(digits_after_point, count);
-  }
-  if (rest != 1) refuse(what + " is " + numeric::to_fraction(value) + ", which has no finite decimal form");
-  // Exact with as many significant digits as the integer |value| * 10^digits_after_point has.
-  numeric::Integer scaled = abs(boost::multiprecision::numerator(value));
-  for (std::size_t k = 0; k < digits_after_point; ++k) scaled *= 10;
-  scaled /= denominator;
-  numeric::Decimal text = numeric::to_decimal(value, static_cast<int>(scaled.str().size()));
-  if (text.rounded) refuse(what + " could not be written exactly");
-  return text.text;
+  auto text = detail::decimal_text(abs(value), false);
+  if (!text) refuse(what + " is " + numeric::to_fraction(value) + ", which has no finite decimal form");
+  return value < 0 ? "-" + *text : *text;
 }
 
 // How the ROWS, RHS and RANGES sections state a row.

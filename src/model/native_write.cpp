@@ -1,5 +1,6 @@
 // Native model format writer: output that parse_native reads back to the same model.
 #include "native_lexer.hpp"
+#include "number_text.hpp"
 #include "plumb/model/write.hpp"
 
 #include <algorithm>
@@ -30,47 +31,13 @@ std::string name_text(const std::string& name) {
   return detail::is_plain_name(name) ? name : "'" + escaped(name, '\'') + "'";
 }
 
-// A non-negative integer, its trailing zeros as an exponent when there are more than six (3e99999).
-std::string integer_text(const Integer& value) {
-  std::string digits = value.str();
-  std::size_t zeros = 0;
-  while (zeros + 1 < digits.size() && digits[digits.size() - 1 - zeros] == '0') ++zeros;
-  if (zeros <= 6) return digits;
-  return digits.substr(0, digits.size() - zeros) + "e" + std::to_string(zeros);
-}
-
 // A non-negative value as an exact decimal when it has one (58.1, 1e-30), else as p/q (1/3e99999).
 // As long as the number that was read, whatever its value: a single number of the file fits its
 // line, and so does this.
 std::string short_magnitude_text(const Rational& value) {
-  Integer numerator = abs(boost::multiprecision::numerator(value));
-  Integer denominator = boost::multiprecision::denominator(value);
-  // The powers of 2 and 5 in the denominator, by GMP's bit scan and factor removal: dividing by 2
-  // and 5 one at a time took seconds on a denominator of 86 784 digits.
-  Integer rest;
-  const long twos = static_cast<long>(mpz_scan1(denominator.backend().data(), 0));
-  mpz_tdiv_q_2exp(rest.backend().data(), denominator.backend().data(), static_cast<mp_bitcnt_t>(twos));
-  const Integer five = 5;
-  const long fives =
-      static_cast<long>(mpz_remove(rest.backend().data(), rest.backend().data(), five.backend().data()));
-  // No decimal, or one far longer than the fraction (1/2^k has a decimal of 0.7 k digits); else the
-  // decimal, easier to read.
-  if (rest != 1 || twos > 3 * fives + 64) return integer_text(numerator) + "/" + integer_text(denominator);
-  long places = std::max(twos, fives);
-  Integer ten_power;
-  mpz_ui_pow_ui(ten_power.backend().data(), 10, static_cast<unsigned long>(places));
-  std::string digits = Integer(numerator * ten_power / denominator).str();
-  long exponent = -places;
-  while (digits.size() > 1 && digits.back() == '0') digits.pop_back(), ++exponent;
-  if (exponent >= 0)
-    return exponent <= 6 ? digits + std::string(static_cast<std::size_t>(exponent), '0')
-                         : digits + "e" + std::to_string(exponent);
-  long before_point = static_cast<long>(digits.size()) + exponent;
-  if (before_point > 0)
-    return digits.substr(0, static_cast<std::size_t>(before_point)) + "." +
-           digits.substr(static_cast<std::size_t>(before_point));
-  if (before_point >= -6) return "0." + std::string(static_cast<std::size_t>(-before_point), '0') + digits;
-  return digits + "e" + std::to_string(exponent);
+  if (auto decimal = detail::decimal_text(value, true)) return *decimal;
+  return detail::integer_text(abs(boost::multiprecision::numerator(value))) + "/" +
+         detail::integer_text(boost::multiprecision::denominator(value));
 }
 
 // A positive integer as a parenthesised sum of chunks of its digits, c1e+K1 + c2e+K2 + ..., one

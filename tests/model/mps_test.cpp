@@ -487,6 +487,25 @@ TEST(MpsWrite, FreeRowsBecomeNRows) {
   EXPECT_TRUE(any_warning_contains(again, "N row \"watch\" dropped"));
 }
 
+// A value of 99 043 digits is read from the seven characters "9e99042"; written out in full it
+// would exceed the reader's line limit, so the writer keeps trailing zeros as an exponent
+// (found by the MPS fuzzer).
+TEST(MpsWrite, LongValuesAreWrittenAsShortAsTheyWereRead) {
+  Model model = read_text(
+      "NAME T\nROWS\n N cost\n G need\nCOLUMNS\n x cost -2.5e-40 need 1\nRHS\n rhs need 9e99042\n"
+      "RANGES\n rng need 1\nBOUNDS\n UP bnd x 1230000000\nENDATA\n");
+  std::string text = write_text(model);
+  EXPECT_LT(text.size(), 300u);
+  EXPECT_NE(text.find("9e99042"), std::string::npos) << text;
+  EXPECT_NE(text.find("123e7"), std::string::npos) << text;
+  EXPECT_NE(text.find("-25e-41"), std::string::npos) << text;
+  Model again = read_text(text);
+  EXPECT_EQ(row(again, "need").lower, row(model, "need").lower);
+  EXPECT_EQ(row(again, "need").upper, row(model, "need").upper);
+  EXPECT_EQ(column(again, "x").upper, value(1230000000));
+  EXPECT_EQ(again.objective.coefficients, model.objective.coefficients);
+}
+
 TEST(MpsWrite, RefusesWhatFreeMpsCannotHold) {
   Model spaced = ModelBuilder().column("X 1", 1).build();
   EXPECT_THROW(write_text(spaced), std::runtime_error);
