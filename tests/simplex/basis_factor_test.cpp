@@ -149,6 +149,15 @@ TEST(FloatBasisFactor, SolvesMatchExactEliminationOnRandomSparseMatrices) {
   EXPECT_GT(checked, 40);
 }
 
+// How the elimination ends: by Markowitz steps only, on a dense copy from the first step, or
+// switching to the dense copy once the active submatrix fills in (the engine's setting).
+enum class Tail { sparse_only, dense_from_start, dense_when_filled };
+
+void use_tail(FloatBasisFactor& factor, Tail tail) {
+  factor.dense_share = tail == Tail::sparse_only ? 2.0 : tail == Tail::dense_from_start ? 0.0 : 0.3;
+  factor.dense_minimum = tail == Tail::dense_from_start ? 1 : 16;
+}
+
 // Replaces column p of `a` by `column` through ftran_entering and update; false when the
 // changed matrix would be close to singular (then nothing changes).
 bool replace_column(FloatBasisFactor& factor, std::vector<std::vector<int>>& a, int p,
@@ -159,6 +168,33 @@ bool replace_column(FloatBasisFactor& factor, std::vector<std::vector<int>>& a, 
   EXPECT_TRUE(factor.update(p, alpha[p]));
   for (std::size_t i = 0; i < a.size(); ++i) a[i][p] = column[i];
   return true;
+}
+
+// Source of truth: exact rational elimination (common practice).  Matrices dense enough to fill
+// in, each eliminated the three ways, solved and then updated.
+TEST(FloatBasisFactor, DenseTailSolvesLikeTheSparseElimination) {
+  std::mt19937 random(5);
+  std::uniform_int_distribution<int> rhs(-5, 5);
+  for (int trial = 0; trial < 8; ++trial) {
+    const int m = 18 + 2 * trial;
+    auto a = random_matrix(m, 0.25, random);
+    std::vector<int> b(m);
+    for (int& v : b) v = rhs(random);
+    if (!exact_solve(a, b, false)) continue;
+    for (Tail tail : {Tail::sparse_only, Tail::dense_from_start, Tail::dense_when_filled}) {
+      const std::string context =
+          "trial " + std::to_string(trial) + " tail " + std::to_string(static_cast<int>(tail));
+      FloatBasisFactor factor;
+      use_tail(factor, tail);
+      ASSERT_TRUE(factor.factorize(m, columns_of(a)).empty()) << context;
+      expect_solves_exactly(factor, a, b, 1e-9, context);
+      auto changed = a;
+      std::vector<int> column(m);
+      for (int& v : column) v = rhs(random);
+      if (replace_column(factor, changed, trial % m, column) && exact_solve(changed, b, false))
+        expect_solves_exactly(factor, changed, b, 1e-8, context + " after an update");
+    }
+  }
 }
 
 // Replacing columns one at a time through Forrest-Tomlin updates must solve like a fresh
@@ -291,13 +327,17 @@ TEST(FloatBasisFactor, NearlySingularMatrixIsReportedSingular) {
   EXPECT_TRUE(factor.refactor_due());
 }
 
-// A singular matrix: the factorization names as many positions as rows it could not pivot.
+// A singular matrix: the factorization names as many positions as rows it could not pivot,
+// whether the sparse steps or the dense copy meet the dependence.
 TEST(FloatBasisFactor, ReportsSingularPositionsAndRows) {
   std::vector<std::vector<int>> a = {{1, 2, 3}, {2, 4, 6}, {0, 0, 1}};  // row 2 = 2 * row 1
-  FloatBasisFactor factor;
-  auto singular = factor.factorize(3, columns_of(a));
-  EXPECT_EQ(singular.positions.size(), 1u);
-  EXPECT_EQ(singular.rows.size(), 1u);
+  for (Tail tail : {Tail::sparse_only, Tail::dense_from_start}) {
+    FloatBasisFactor factor;
+    use_tail(factor, tail);
+    auto singular = factor.factorize(3, columns_of(a));
+    EXPECT_EQ(singular.positions.size(), 1u);
+    EXPECT_EQ(singular.rows.size(), 1u);
+  }
 }
 
 }  // namespace
