@@ -52,10 +52,13 @@ class RationalEngine {
   // Certifies a basis without a rational LU or any pivot: x_B and y by float LU, iterative
   // refinement and rational reconstruction, each proven by exact multiplication (refine.hpp).
   // True when both are feasible; run() then reports the optimum.  False when the basis does not
-  // fit, refinement gives up, or either check fails: then start_from the same basis.  When both
-  // were computed but one is infeasible and `correction` is given, it receives the correction
-  // problem of that basis, for a float re-solve from it.
+  // fit, refinement gives up, or either check fails: then start_from the same basis.  When one is
+  // infeasible (found exactly, or clearly so before either is computed) and `correction` is
+  // given, it receives the correction problem of that basis, for a float re-solve from it.
   bool certify_by_refinement(const simplex::Basis& basis, simplex::CorrectionProblem* correction = nullptr);
+  // The last correction problem was built from approximate duals and basic values, the basis
+  // being clearly not optimal (no exact solution was computed).
+  bool correction_was_approximate() const { return correction_was_approximate_; }
   // After start_from: proves infeasibility from the row of B^{-1} of this basic variable, which
   // violates a bound that no nonbasic variable can bring it towards (the float search's hint).
   bool certify_infeasible_row(int variable);
@@ -98,6 +101,8 @@ class RationalEngine {
   RefineLimits refine_limits() const;
   bool rest_for_refinement(const simplex::Basis& basis, RefinedSolver& solver);
   simplex::CorrectionProblem correction_problem(const std::vector<double>& reduced_costs) const;
+  bool clearly_not_optimal(RefinedSolver& solver, const std::vector<Rational>& rhs,
+                           simplex::CorrectionProblem& correction);
   template <class Visit>
   void for_each_priced_column(Visit&& visit) const;
   bool improving_estimate(int k, double d) const;
@@ -145,6 +150,7 @@ class RationalEngine {
   int degenerate_run_ = 0;
   bool bland_ = false;
   bool repaired_ = false;
+  bool correction_was_approximate_ = false;
   std::optional<Step> settled_;  // set by the certify_ functions: run() reports it
   std::string phase_;
   std::vector<Rational> farkas_;

@@ -124,6 +124,48 @@ std::optional<std::vector<Rational>> RefinedSolver::solve_transposed(const std::
   return refine(dual_, c, true);
 }
 
+std::optional<RefinedSolver::Approximation> RefinedSolver::approximate(const std::vector<Rational>& b,
+                                                                       long bits) {
+  return approximate_with(primal_, b, false, bits);
+}
+
+std::optional<RefinedSolver::Approximation> RefinedSolver::approximate_transposed(
+    const std::vector<Rational>& c, long bits) {
+  return approximate_with(dual_, c, true, bits);
+}
+
+// refine() up to the asked accuracy: it then leaves its answer empty and approximation_ set.
+std::optional<RefinedSolver::Approximation> RefinedSolver::approximate_with(const IntegerMatrix& matrix,
+                                                                            const std::vector<Rational>& rhs,
+                                                                            bool transposed, long bits) {
+  approximate_bits_ = bits;
+  approximation_ = {};
+  auto exact = refine(matrix, rhs, transposed);
+  approximate_bits_ = 0;
+  if (!exact) return std::nullopt;
+  if (exact->size() != static_cast<std::size_t>(m_)) return approximation_;
+  Approximation ended_exact;
+  for (const Rational& v : *exact) ended_exact.values.push_back(numeric::to_double(v));
+  return ended_exact;
+}
+
+// N / (2^E L) in double, each within about 2^(error_bits - E) / L of the solution.
+RefinedSolver::Approximation RefinedSolver::approximation(long error_bits) {
+  fold_recent();
+  auto power_of_two = [](long exponent) { return static_cast<int>(std::clamp(exponent, -100000L, 100000L)); };
+  long l_exponent = 0;
+  const double l_mantissa = mpz_get_d_2exp(&l_exponent, z(rhs_denominator_));
+  Approximation result;
+  result.values.resize(static_cast<std::size_t>(m_));
+  for (int j = 0; j < m_; ++j) {
+    long n_exponent = 0;
+    const double n_mantissa = mpz_get_d_2exp(&n_exponent, z(numerator_[j]));
+    result.values[j] = std::ldexp(n_mantissa / l_mantissa, power_of_two(n_exponent - l_exponent - exponent_));
+  }
+  result.error = std::ldexp(1 / l_mantissa, power_of_two(error_bits - exponent_ - l_exponent));
+  return result;
+}
+
 // work_ = M^-1 (r / 2^shift) in double, with shift chosen so that r / (D 2^shift) is of order one.
 void RefinedSolver::float_solve(const IntegerMatrix& matrix, bool transposed, long& shift) {
   shift = std::numeric_limits<long>::min();
@@ -260,6 +302,10 @@ std::optional<std::vector<Rational>> RefinedSolver::refine(const IntegerMatrix& 
     if (largest == 0) return std::nullopt;
     // |M^-1 r| is about 2^error_bits, so N / 2^E is within 2^(error_bits - E) of the solution.
     const long error_bits = shift + std::ilogb(largest) + 1;
+    if (approximate_bits_ > 0 && exponent_ - error_bits >= approximate_bits_) {
+      approximation_ = approximation(error_bits);
+      return std::vector<Rational>{};
+    }
     // The denominator of the previous verified answer often serves this one too (the primal and
     // dual solutions at one basis share det B): with a known denominator Q, rounding N Q / 2^E
     // needs only bits(Q) bits beyond the error, and a further factor q of the denominator

@@ -55,6 +55,16 @@ class RefinedSolver {
   // y with B^T y = c (c indexed by basis position, y by row), likewise.
   std::optional<std::vector<Rational>> solve_transposed(const std::vector<Rational>& c);
 
+  // x or y to about 2^-bits of their largest entry, with neither reconstruction nor proof: to see
+  // a basis is clearly not optimal before paying for its exact solutions.  Each value lies within
+  // about `error` of the solution (0 when refinement happened to end exact); nullopt as above.
+  struct Approximation {
+    std::vector<double> values;
+    double error = 0;
+  };
+  std::optional<Approximation> approximate(const std::vector<Rational>& b, long bits);
+  std::optional<Approximation> approximate_transposed(const std::vector<Rational>& c, long bits);
+
   const RefineStats& stats() const { return stats_; }
   // The last answer returned, as integer numerators over one positive common denominator: exact
   // arithmetic on it needs no gcd per operation.  Valid until the next solve.
@@ -89,6 +99,9 @@ class RefinedSolver {
   bool reconstruct(const IntegerMatrix& matrix, long error_bits, const Integer* seed, std::vector<Rational>& answer);
   bool prove(const IntegerMatrix& matrix, Integer common, std::vector<Rational>& answer);
   void fold_recent();
+  std::optional<Approximation> approximate_with(const IntegerMatrix& matrix, const std::vector<Rational>& rhs,
+                                                bool transposed, long bits);
+  Approximation approximation(long error_bits);
 
   RefineLimits limits_;
   RefineStats stats_;
@@ -106,6 +119,8 @@ class RefinedSolver {
   std::vector<Integer> recent_;
   long recent_bits_ = 0;     // b
   Integer seed_ = 0;         // least common denominator of the last verified answer, 0 before one
+  long approximate_bits_ = 0;  // while positive, refine() stops at this accuracy (approximation_)
+  Approximation approximation_;
   std::vector<double> work_;
   std::vector<long> exponents_;  // float_solve(): binary exponents of the residual over D
   std::vector<Wide> wide_;       // step_in_machine_integers(): the new residual

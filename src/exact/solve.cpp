@@ -54,6 +54,7 @@ bool certify_with_corrections(RationalEngine& engine, const model::Model& model,
     search.progress = float_progress(options, "correction: ");
     simplex::FloatResult corrected = simplex::solve_float(model, search);
     stats.correction_rounds = round + 1;
+    stats.approximate_corrections += engine.correction_was_approximate();
     stats.correction_iterations += corrected.iterations;
     if (corrected.status != simplex::FloatStatus::optimal) return false;
     basis = std::move(corrected.basis);

@@ -79,6 +79,7 @@ nlohmann::ordered_json solve_json(const model::Model& model, const exact::Certif
                   {"exact_iterations", stats.exact_iterations},
                   {"correction_rounds", stats.correction_rounds},
                   {"correction_iterations", stats.correction_iterations},
+                  {"approximate_corrections", stats.approximate_corrections},
                   {"repaired", stats.repaired},
                   {"fell_back", stats.fell_back},
                   {"zero_cost_search", stats.zero_cost_search},

@@ -5,6 +5,7 @@
 
 #include <gtest/gtest.h>
 
+#include <cmath>
 #include <optional>
 #include <random>
 #include <vector>
@@ -131,6 +132,32 @@ TEST(Refine, HilbertBlocksAreSolvedOrRefusedButNeverWrong) {
   for (int n : {12, 14}) {  // beyond double precision: either answer is acceptable, a wrong one is not
     Columns columns = hilbert_block(n, 3);
     compare_routes(n + 3, columns, random_vector(n + 3, true, random));
+  }
+}
+
+// Approximations stop short of reconstruction yet lie within their stated error of the exact
+// solution (with the margin their users allow: the error is an estimate), in both directions.
+// Source of truth: the rational LU (common practice).
+TEST(Refine, ApproximationsLieWithinTheirErrorOfTheSolution) {
+  std::mt19937 random(41);
+  for (int trial = 0; trial < 10; ++trial) {
+    const int m = 6 + 3 * trial;
+    Columns columns = random_matrix(m, 0.3, true, random);
+    std::vector<Rational> b = random_vector(m, true, random);
+    RefinedSolver solver;
+    if (!solver.factorize(m, columns)) continue;
+    for (bool transposed : {false, true}) {
+      auto exact = reference(m, columns, b, transposed);
+      auto near = transposed ? solver.approximate_transposed(b, 96) : solver.approximate(b, 96);
+      ASSERT_TRUE(exact && near) << "trial " << trial;
+      ASSERT_EQ(near->values.size(), static_cast<std::size_t>(m));
+      EXPECT_LT(near->error, 1e-20) << "trial " << trial;
+      for (int j = 0; j < m; ++j) {
+        const double value = numeric::to_double((*exact)[j]);
+        EXPECT_NEAR(near->values[j], value, 0x1p16 * near->error + 0x1p-50 * std::abs(value))
+            << "trial " << trial << (transposed ? " y " : " x ") << j;
+      }
+    }
   }
 }
 

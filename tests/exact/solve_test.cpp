@@ -264,9 +264,9 @@ TEST(ExactSolve, WarmStartFromOptimalBasis) {
   EXPECT_EQ(s.stats.proof, "refined basis");  // float LU and refinement, no rational LU
 }
 
-// From the logical basis of Chvatal's example, feasible but not optimal: refinement finds wrong
-// reduced-cost signs, one float re-solve of the correction problem reaches the optimal basis, and
-// that is certified by refinement with no exact pivot.
+// From the logical basis of Chvatal's example, feasible but not optimal: approximate duals show
+// wrong reduced-cost signs before any exact solution, one float re-solve of the correction problem
+// reaches the optimal basis, and that is certified by refinement with no exact pivot.
 TEST(ExactSolve, WarmStartIsCorrectedByAFloatReSolve) {
   auto model = chvatal_chapter2();
   simplex::Basis logical{{VarStatus::at_lower, VarStatus::at_lower, VarStatus::at_lower},
@@ -275,6 +275,7 @@ TEST(ExactSolve, WarmStartIsCorrectedByAFloatReSolve) {
   ASSERT_EQ(s.outcome, Outcome::optimal);
   EXPECT_EQ(s.objective, 13);  // Chvatal 1983, ch. 2
   EXPECT_EQ(s.stats.correction_rounds, 1);
+  EXPECT_EQ(s.stats.approximate_corrections, 1);
   EXPECT_EQ(s.stats.exact_iterations, 0);
   EXPECT_EQ(s.stats.proof, "refined basis");
   EXPECT_TRUE(s.stats.repaired);

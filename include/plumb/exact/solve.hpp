@@ -68,6 +68,7 @@ struct SolveStats {
   long exact_iterations = 0;
   int correction_rounds = 0;       // float re-solves of a correction problem before certification
   long correction_iterations = 0;  // their float iterations
+  int approximate_corrections = 0;  // of those rounds, the ones decided before any exact solution
   long auxiliary_iterations = 0;   // float iterations on the least-infeasibility, feasible-point and ray LPs
   bool repaired = false;       // the starting basis was not optimal exactly: corrected or pivoted
   bool fell_back = false;      // the float phase failed; the exact engine took over from its last basis
