@@ -340,6 +340,7 @@ bool RationalEngine::clearly_not_optimal(RefinedSolver& solver, const std::vecto
   for (int p = 0; p < m_; ++p) {
     const int k = head_[p];
     const double v = x->values[p], margin = safety * (x->error + 0x1p-50 * std::abs(v));
+    if (!std::isfinite(v)) return false;  // beyond double range: leave it to the exact solution
     if (lower_[k] && std::abs(v - numeric::to_double(*lower_[k])) <= margin)
       value_[k] = *lower_[k];
     else if (upper_[k] && std::abs(v - numeric::to_double(*upper_[k])) <= margin)
@@ -352,11 +353,10 @@ bool RationalEngine::clearly_not_optimal(RefinedSolver& solver, const std::vecto
 }
 
 // The correction problem at the current basis (its basic values exact, or approximated as in
-// clearly_not_optimal): variables measure
-// the step from the current point, scaled by 2^p so that the largest bound violation of a basic
-// variable is about one, and costs are the reduced costs scaled by 2^d so that the largest wrong
-// sign is about one (Gleixner, Steffy & Wolter 2016).  The scales are capped so that the rest of
-// the problem stays within double range.
+// clearly_not_optimal): variables measure the step from the current point, scaled by 2^p so
+// that the largest bound violation of a basic variable is about one, and costs are the reduced
+// costs scaled by 2^d so that the largest wrong sign is about one (Gleixner, Steffy & Wolter
+// 2016).  The scales are capped so that the rest of the problem stays within double range.
 simplex::CorrectionProblem RationalEngine::correction_problem(
     const std::vector<double>& reduced_costs) const {
   double primal_violation = 0, dual_violation = 0;

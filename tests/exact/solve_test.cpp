@@ -281,6 +281,25 @@ TEST(ExactSolve, WarmStartIsCorrectedByAFloatReSolve) {
   EXPECT_TRUE(s.stats.repaired);
 }
 
+// A basis clearly not optimal (x1's reduced cost -1 at its lower bound) whose basic value, 10^400,
+// lies beyond double range: the approximate values cannot serve, so the certification takes the
+// exact ones and still reaches the optimum x1 = 10^400, objective -10^400 (by hand).
+TEST(ExactSolve, ApproximationsBeyondDoubleRangeLeaveTheRoundToExactValues) {
+  Rational huge(1);
+  for (int k = 0; k < 400; ++k) huge *= 10;
+  auto model = ModelBuilder("beyond-double")
+                   .minimise()
+                   .column("x1", q(-1))
+                   .column("x2", q(0))
+                   .row("total", Terms{{"x1", q(1)}, {"x2", q(1)}}, huge, huge)
+                   .build();
+  simplex::Basis x2_basic{{VarStatus::at_lower, VarStatus::basic}, {VarStatus::at_lower}};
+  Solution s = solve_exactly(model, &x2_basic);
+  ASSERT_EQ(s.outcome, Outcome::optimal);
+  EXPECT_EQ(s.objective, -huge);
+  EXPECT_EQ(s.stats.approximate_corrections, 0);
+}
+
 TEST(ExactSolve, WarmStartRepairsWrongBases) {
   auto model = chvatal_chapter2();
   // Too many basic variables: all three columns and all three logicals.
