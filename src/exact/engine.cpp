@@ -235,9 +235,7 @@ bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
   bool optimal = !infeasible_basis();
   if (!optimal && !correction) return false;
 
-  std::vector<Rational> basic_costs(static_cast<std::size_t>(m_));
-  for (int p = 0; p < m_; ++p) basic_costs[p] = cost_[head_[p]];
-  auto y = solver.solve_transposed(basic_costs);
+  auto y = solver.solve_transposed(basic_costs());
   if (!y) return false;
   // Signs of the reduced costs d_j = c'_j - a_j^T y for y = P / Q (y's fractions are long:
   // thousands of bits on some Netlib bases).  A double estimate decides a sign when it exceeds a
@@ -257,21 +255,11 @@ bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
   Integer sum;
   for_each_priced_column([&](int j, std::span<const int> rows, std::size_t entry) {
     if (!optimal && !correction) return;
-    double d = cost_estimate_[j], size = std::abs(d);
-    bool usable = true;
-    for (int r : rows) {
-      double term = matrix_estimate_[entry++] * dual_estimate[r];
-      d -= term;
-      size += std::abs(term);
-      usable = usable && estimate_usable[r];
-    }
-    // Each input is within 2^-52 (relative) of its exact value, dual estimates within 2^-50,
-    // and each of the k operations adds 2^-53: (k + 32) 2^-50 of the sum of magnitudes is ample;
-    // the last term covers products that underflow.
-    const double k = static_cast<double>(rows.size());
-    const double error = (k + 32) * 0x1p-50 * size + (k + 1) * 0x1p-1020;
+    const ReducedCostEstimate estimate = estimate_reduced_cost(j, rows, entry, dual_estimate);
+    const bool usable = std::all_of(rows.begin(), rows.end(), [&](int r) { return estimate_usable[r] != 0; });
+    double d = estimate.value;
     int sign;
-    if (usable && std::isfinite(size) && std::abs(d) > error) {
+    if (usable && std::abs(d) > estimate.rounding) {
       sign = d > 0 ? 1 : -1;
     } else {
       exact_reduced_cost(j, cost_[j], numerators, denominator, sum);
@@ -309,9 +297,7 @@ bool RationalEngine::clearly_not_optimal(RefinedSolver& solver, const std::vecto
                                          simplex::CorrectionProblem& correction) {
   constexpr long accuracy_bits = 96;
   constexpr double safety = 0x1p16;  // the approximations' errors are estimates, not bounds
-  std::vector<Rational> basic_costs(static_cast<std::size_t>(m_));
-  for (int p = 0; p < m_; ++p) basic_costs[p] = cost_[head_[p]];
-  auto y = solver.approximate_transposed(basic_costs, accuracy_bits);
+  auto y = solver.approximate_transposed(basic_costs(), accuracy_bits);
   if (!y) return false;
   std::vector<double> reduced_costs(static_cast<std::size_t>(total()), 0.0);
   bool wrong = false;
@@ -322,15 +308,8 @@ bool RationalEngine::clearly_not_optimal(RefinedSolver& solver, const std::vecto
     wrong = wrong || eligible_sign(k, d > 0 ? 1 : -1);
   };
   for_each_priced_column([&](int j, std::span<const int> rows, std::size_t entry) {
-    double d = cost_estimate_[j], size = std::abs(d), spread = 0;
-    for (int r : rows) {
-      const double a = matrix_estimate_[entry++];
-      d -= a * y->values[r];
-      size += std::abs(a * y->values[r]);
-      spread += std::abs(a);
-    }
-    const double k = static_cast<double>(rows.size());
-    if (std::isfinite(size)) decide(j, d, (k + 32) * 0x1p-50 * size + (k + 1) * 0x1p-1020, spread);
+    const ReducedCostEstimate estimate = estimate_reduced_cost(j, rows, entry, y->values);
+    decide(j, estimate.value, estimate.rounding, estimate.spread);
   });
   for (int i = 0; i < m_; ++i)  // d = y_i for the logical r_i
     if (!basic(n_ + i) && !fixed_[n_ + i]) decide(n_ + i, y->values[i], 0x1p-50 * std::abs(y->values[i]), 1);
@@ -350,6 +329,30 @@ bool RationalEngine::clearly_not_optimal(RefinedSolver& solver, const std::vecto
   }
   correction = correction_problem(reduced_costs);
   return true;
+}
+
+std::vector<Rational> RationalEngine::basic_costs() const {
+  std::vector<Rational> costs(static_cast<std::size_t>(m_));
+  for (int p = 0; p < m_; ++p) costs[p] = cost_[head_[p]];
+  return costs;
+}
+
+RationalEngine::ReducedCostEstimate RationalEngine::estimate_reduced_cost(
+    int j, std::span<const int> rows, std::size_t entry, const std::vector<double>& dual_estimate) const {
+  double d = cost_estimate_[j], size = std::abs(d), spread = 0;
+  for (int r : rows) {
+    const double a = matrix_estimate_[entry++], term = a * dual_estimate[r];
+    d -= term;
+    size += std::abs(term);
+    spread += std::abs(a);
+  }
+  // Each input is within 2^-52 (relative) of its exact value, dual estimates within 2^-50, and
+  // each of the k operations adds 2^-53: (k + 32) 2^-50 of the sum of magnitudes is ample; the
+  // last term covers products that underflow.
+  const double k = static_cast<double>(rows.size());
+  const double rounding = std::isfinite(size) ? (k + 32) * 0x1p-50 * size + (k + 1) * 0x1p-1020
+                                              : std::numeric_limits<double>::infinity();
+  return {d, rounding, spread};
 }
 
 // The correction problem at the current basis (its basic values exact, or approximated as in

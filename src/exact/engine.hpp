@@ -103,6 +103,14 @@ class RationalEngine {
   simplex::CorrectionProblem correction_problem(const std::vector<double>& reduced_costs) const;
   bool clearly_not_optimal(RefinedSolver& solver, const std::vector<Rational>& rhs,
                            simplex::CorrectionProblem& correction);
+  std::vector<Rational> basic_costs() const;  // c' of the basic variables, by position
+  // d_j = c'_j - a_j^T y in double from estimates of y: the value, a bound on the error of the
+  // double arithmetic (infinite when it overflows), and sum |a_ij| (y's own error multiplies it).
+  struct ReducedCostEstimate {
+    double value, rounding, spread;
+  };
+  ReducedCostEstimate estimate_reduced_cost(int j, std::span<const int> rows, std::size_t entry,
+                                            const std::vector<double>& dual_estimate) const;
   template <class Visit>
   void for_each_priced_column(Visit&& visit) const;
   bool improving_estimate(int k, double d) const;

@@ -776,11 +776,11 @@ Model Reader::build() {
     }
     // The right-hand side and the range each obey the limit on numbers; the side they add up to
     // must too, or the model could not be written so that it reads back.
-    for (const Side& side : {row.lower, row.upper})
-      if (state.range && side && !numeric::within_limits(*side))
+    for (const Side* side : {&row.lower, &row.upper})
+      if (state.range && *side && !numeric::within_limits(**side))
         throw InputError({cursor_.file(), state.range_line, state.range_column},
                          "a range that puts a side of row " + quoted(state.name) + " at " +
-                             numeric::to_decimal(*side, 3).text,
+                             numeric::to_decimal(**side, 3).text,
                          numeric::limit_phrase());
     model_.rows.push_back(std::move(row));
   }
