@@ -3,10 +3,13 @@
 
 #include "solve_path.hpp"
 
+#include <chrono>
 #include <map>
 #include <optional>
 #include <stdexcept>
 #include <string>
+#include <utility>
+#include <vector>
 
 namespace plumb::exact {
 
@@ -31,7 +34,27 @@ struct Session::State {
   std::map<int, nlohmann::ordered_json> changed_rows, changed_columns;
   Goal goal = Goal::model_objective;
   simplex::Basis basis;  // where the last solve ended; empty before the first
+  // The last proof of infeasibility a solve found, and the limits (lower, upper) its rows and
+  // columns had then, for those edited since: the proof holds still while every row or column
+  // whose limits differ from then carries no multiplier (earlier_proof_unaffected).
+  std::optional<Solution> infeasible;
+  bool infeasible_has_few_multipliers = false;
+  using Limits = std::pair<model::Side, model::Side>;
+  std::map<int, Limits> rows_then, columns_then;
 
+  template <class Item>
+  static void remember(int k, const Item& item, std::map<int, Limits>& then) {
+    then.try_emplace(k, item.lower, item.upper);
+  }
+  template <class Item>
+  static std::vector<int> differing(const std::vector<Item>& now, const std::map<int, Limits>& then) {
+    std::vector<int> moved;
+    for (const auto& [k, limits] : then)
+      if (now[k].lower != limits.first || now[k].upper != limits.second) moved.push_back(k);
+    return moved;
+  }
+
+  const model::Model& current_model() const { return edited ? *edited : original; }
   model::Model& copy() {
     if (!edited) {
       edited = original;
@@ -43,11 +66,13 @@ struct Session::State {
 
   void edit_row(int row, model::Side model::Row::*side, model::Side value) {
     require_index(row, original.row_count(), "row");
+    remember(row, current_model().rows[row], rows_then);
     copy().rows[row].*side = std::move(value);
     note("row", row, edited->rows, original.rows, changed_rows);
   }
   void edit_column(int column, model::Side model::Column::*side, model::Side value) {
     require_index(column, original.column_count(), "column");
+    remember(column, current_model().columns[column], columns_then);
     copy().columns[column].*side = std::move(value);
     note("column", column, edited->columns, original.columns, changed_columns);
   }
@@ -62,6 +87,34 @@ struct Session::State {
       return value ? nlohmann::ordered_json(numeric::to_fraction(*value)) : nlohmann::ordered_json(nullptr);
     };
     changed[k] = {{kind, now[k].name}, {"lower", side(now[k].lower)}, {"upper", side(now[k].upper)}};
+  }
+
+  // Whether the edits since the last solve leave its proof of infeasibility standing: no edited
+  // row carries a multiplier and no edited column's bounds are pressed (its entry of A^T y is 0),
+  // or, for a proof on single sides and bounds, none of its entries was edited.  A necessary
+  // condition only: the checker has the last word on the proof as a certificate of current().
+  bool earlier_proof_unaffected() const {
+    const Solution& proof = *infeasible;
+    const model::Model& now = current_model();
+    std::vector<int> rows = differing(now.rows, rows_then), columns = differing(now.columns, columns_then);
+    if (!proof.farkas.empty()) {
+      for (const certificate::FarkasTerm& term : proof.farkas) {
+        bool row = term.entry.kind == certificate::EntryKind::row;
+        for (int k : row ? rows : columns)
+          if ((row ? now.rows[k].name : now.columns[k].name) == term.entry.name) return false;
+      }
+      return true;
+    }
+    for (int row : rows)
+      if (proof.y[row] != 0) return false;
+    for (int column : columns) {
+      Rational pressure = 0;
+      std::span<const int> entry_rows = now.matrix.column_rows(column);
+      std::span<const Rational> values = now.matrix.column_values(column);
+      for (std::size_t k = 0; k < entry_rows.size(); ++k) pressure += values[k] * proof.y[entry_rows[k]];
+      if (pressure != 0) return false;
+    }
+    return true;
   }
 
   // The "changes" key of an edited model's certificates: each changed row or column with its
@@ -93,6 +146,7 @@ void Session::set_column_upper(int column, model::Side value) {
 void Session::restore_row(int row) {
   require_index(row, state_->original.row_count(), "row");
   if (!state_->changed_rows.contains(row)) return;
+  State::remember(row, state_->edited->rows[row], state_->rows_then);
   state_->edited->rows[row] = state_->original.rows[row];
   state_->changed_rows.erase(row);
 }
@@ -100,6 +154,7 @@ void Session::restore_row(int row) {
 void Session::restore_column(int column) {
   require_index(column, state_->original.column_count(), "column");
   if (!state_->changed_columns.contains(column)) return;
+  State::remember(column, state_->edited->columns[column], state_->columns_then);
   state_->edited->columns[column] = state_->original.columns[column];
   state_->changed_columns.erase(column);
 }
@@ -130,10 +185,45 @@ bool Session::edited() const { return state_->any_change(); }
 const model::Model& Session::current() const { return edited() ? *state_->edited : state_->original; }
 
 CertifiedSolution Session::solve(const SolveOptions& options) {
-  const simplex::Basis* last = state_->basis.empty() ? options.search_start : &state_->basis;
+  State& state = *state_;
+  auto start = std::chrono::steady_clock::now();
+  // A deletion filter's restore, or a relaxation outside the proof: the last proof of
+  // infeasibility may hold still, as the checker decides, for the price of one check.
+  bool reusable = state.infeasible && options.method == Method::hybrid && !options.warm_start &&
+                  options.fault == Fault::none &&
+                  (state.infeasible_has_few_multipliers || !options.few_multipliers);
+  std::vector<std::string> rejections;
+  if (reusable && state.earlier_proof_unaffected()) {
+    CertifiedSolution result;
+    result.solution = *state.infeasible;
+    result.solution.stats = {};
+    result.solution.stats.proof = "earlier proof";
+    result.certificate = make_certificate(current(), result.solution);
+    result.verdict = check::verify(current(), result.certificate);
+    if (result.verdict.valid) {
+      result.solution.stats.certify_seconds =
+          std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+      if (edited()) result.certificate.extra["changes"] = state.changes();
+      return result;
+    }
+    // Unaffected by the edits, the proof must hold: a rejection is a bug, reported like the
+    // solve path's; the solve below answers instead.
+    rejections.push_back("the checker rejected the earlier proof of infeasibility: " +
+                         result.verdict.failure);
+  }
+
+  const simplex::Basis* last = state.basis.empty() ? options.search_start : &state.basis;
   CertifiedSolution result = detail::verified_solve(current(), options, last);
-  if (result.solution.outcome != Outcome::stopped && !result.solution.basis.empty()) state_->basis = result.solution.basis;
-  if (result.certified() && edited()) result.certificate.extra["changes"] = state_->changes();
+  result.rejections.insert(result.rejections.begin(), rejections.begin(), rejections.end());
+  if (result.solution.outcome == Outcome::stopped) return result;
+  if (!result.solution.basis.empty()) state.basis = result.solution.basis;
+  if (result.certified() && result.solution.outcome == Outcome::infeasible) {
+    state.infeasible = result.solution;
+    state.infeasible_has_few_multipliers = options.few_multipliers;
+    state.rows_then.clear();
+    state.columns_then.clear();
+  }
+  if (result.certified() && edited()) result.certificate.extra["changes"] = state.changes();
   return result;
 }
 

@@ -148,6 +148,65 @@ TEST(ExactSession, ColumnEditsAndRestoresMatchFreshSolves) {
   expect_as_fresh(session, model);
 }
 
+// A proof of infeasibility stands while every row and column whose limits moved since it was
+// found carries no multiplier: the session answers with it after one check, and solves again
+// otherwise.
+TEST(ExactSession, AnEarlierProofOfInfeasibilityAnswersWhileItsLimitsStand) {
+  auto model = bakery();
+  Session session(model);
+  auto edited = model;
+  edited.source.sha256.clear();
+  auto expect_proof = [&](bool earlier, Outcome outcome) {
+    CertifiedSolution result = expect_as_fresh(session, edited);
+    EXPECT_EQ(result.solution.outcome, outcome);
+    EXPECT_EQ(result.solution.stats.proof == "earlier proof", earlier) << result.solution.stats.proof;
+    return result;
+  };
+
+  // At least 60 wheat and spelt, from at most 50 flour: infeasible by promise and flour.
+  session.set_row_lower(2, q(60));
+  edited.rows[2].lower = q(60);
+  CertifiedSolution first = expect_proof(false, Outcome::infeasible);
+  ASSERT_EQ(first.solution.y[0], 0);  // the oven plays no part in the proof
+  ASSERT_NE(first.solution.y[1], 0);
+
+  session.set_row_upper(0, std::nullopt);  // the oven freed: outside the proof
+  edited.rows[0].upper.reset();
+  CertifiedSolution again = expect_proof(true, Outcome::infeasible);
+  EXPECT_EQ(again.certificate.extra["changes"].size(), 2u);
+
+  session.set_row_upper(1, q(70));  // more flour: the proof's own row moved, and it is feasible
+  edited.rows[1].upper = q(70);
+  expect_proof(false, Outcome::optimal);
+  session.restore_row(1);  // back to the limits the proof was found with
+  edited.rows[1] = model.rows[1];
+  expect_proof(true, Outcome::infeasible);
+
+  session.set_column_lower(0, std::nullopt);  // rye below zero frees flour: its bound was pressed
+  edited.columns[0].lower.reset();
+  expect_proof(false, Outcome::optimal);
+  session.restore_column(0);
+  edited.columns[0] = model.columns[0];
+  expect_proof(true, Outcome::infeasible);
+
+  // The oven crossed: infeasible twice over, and the proof above still stands.  With the promise
+  // restored the crossed row is the proof, on its two limits alone, and stands while they do.
+  session.set_row_lower(0, q(25));
+  session.set_row_upper(0, q(20));
+  edited.rows[0].lower = q(25);
+  edited.rows[0].upper = q(20);
+  expect_proof(true, Outcome::infeasible);
+  session.restore_row(2);
+  edited.rows[2] = model.rows[2];
+  EXPECT_EQ(expect_proof(false, Outcome::infeasible).solution.stats.proof, "crossed limits");
+  session.set_row_upper(1, q(70));
+  edited.rows[1].upper = q(70);
+  expect_proof(true, Outcome::infeasible);
+  session.restore_row(0);
+  edited.rows[0] = model.rows[0];
+  expect_proof(false, Outcome::optimal);
+}
+
 TEST(ExactSession, SettingTheOriginalValueIsNoEdit) {
   auto model = bakery();
   Session session(model);

@@ -49,8 +49,10 @@ class Session {
   bool edited() const;  // some side, bound or the goal differs from the model as given
 
   // Solves the current (edited) model warm from the last basis, through the float search and
-  // exact certification; never returns an unverified result as certified.  A warm_start in
-  // `options` means what it means to certified_solve: the exact engine starts there.
+  // exact certification; never returns an unverified result as certified.  When the edits since
+  // the last proof of infeasibility leave it standing (no moved limit carries a multiplier), that
+  // proof answers after the independent check (stats.proof "earlier proof"; docs/solving.md).  A warm_start
+  // in `options` means what it means to certified_solve: the exact engine starts there.
   CertifiedSolution solve(const SolveOptions& options = {});
 
   // The model with the edits applied (no file SHA-256 once edited); valid until the next edit.

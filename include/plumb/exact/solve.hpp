@@ -76,7 +76,8 @@ struct SolveStats {
   std::string float_note;      // why the float phase failed, when it did
   std::string phase;           // the exact phase last run (how far a stopped solve got)
   // How the outcome was proven (docs/solving.md): "refined basis", "least infeasibility",
-  // "feasible point and ray", "row of the inverse", "edge of the basis" or "exact pivots".
+  // "feasible point and ray", "row of the inverse", "edge of the basis", "exact pivots", ...;
+  // "earlier proof" when a session's last proof of infeasibility still holds under its edits.
   std::string proof;
 };
 
