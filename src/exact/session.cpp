@@ -34,6 +34,7 @@ struct Session::State {
   std::map<int, nlohmann::ordered_json> changed_rows, changed_columns;
   Goal goal = Goal::model_objective;
   simplex::Basis basis;  // where the last solve ended; empty before the first
+  bool basis_from_zero_costs = false;  // found by the zero-cost search (detail::SearchStart)
   // The last proof of infeasibility a solve found, and the limits (lower, upper) its rows and
   // columns had then, for those edited since: the proof holds still while every row or column
   // whose limits differ from then carries no multiplier (earlier_proof_unaffected).
@@ -186,7 +187,7 @@ const model::Model& Session::current() const { return edited() ? *state_->edited
 
 CertifiedSolution Session::solve(const SolveOptions& options) {
   State& state = *state_;
-  auto start = std::chrono::steady_clock::now();
+  auto started = std::chrono::steady_clock::now();
   // A deletion filter's restore, or a relaxation outside the proof: the last proof of
   // infeasibility may hold still, as the checker decides, for the price of one check.
   bool reusable = state.infeasible && options.method == Method::hybrid && !options.warm_start &&
@@ -202,7 +203,7 @@ CertifiedSolution Session::solve(const SolveOptions& options) {
     result.verdict = check::verify(current(), result.certificate);
     if (result.verdict.valid) {
       result.solution.stats.certify_seconds =
-          std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+          std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
       if (edited()) result.certificate.extra["changes"] = state.changes();
       return result;
     }
@@ -212,11 +213,15 @@ CertifiedSolution Session::solve(const SolveOptions& options) {
                          result.verdict.failure);
   }
 
-  const simplex::Basis* last = state.basis.empty() ? options.search_start : &state.basis;
-  CertifiedSolution result = detail::verified_solve(current(), options, last);
+  detail::SearchStart start{options.search_start};
+  if (!state.basis.empty()) start = {&state.basis, state.basis_from_zero_costs};
+  CertifiedSolution result = detail::verified_solve(current(), options, start);
   result.rejections.insert(result.rejections.begin(), rejections.begin(), rejections.end());
   if (result.solution.outcome == Outcome::stopped) return result;
-  if (!result.solution.basis.empty()) state.basis = result.solution.basis;
+  if (!result.solution.basis.empty()) {
+    state.basis = result.solution.basis;
+    state.basis_from_zero_costs = result.solution.stats.zero_cost_search;
+  }
   if (result.certified() && result.solution.outcome == Outcome::infeasible) {
     state.infeasible = result.solution;
     state.infeasible_has_few_multipliers = options.few_multipliers;

@@ -179,9 +179,11 @@ std::optional<Solution> crossed_limits(const model::Model& model) {
 
 }  // namespace
 
-Solution solve(const model::Model& model, const SolveOptions& options) { return detail::solve_from(model, options, nullptr); }
+Solution solve(const model::Model& model, const SolveOptions& options) {
+  return detail::solve_from(model, options, {});
+}
 
-Solution detail::solve_from(const model::Model& model, const SolveOptions& options, const simplex::Basis* float_start) {
+Solution detail::solve_from(const model::Model& model, const SolveOptions& options, SearchStart start) {
   if (std::optional<Solution> crossed = crossed_limits(model)) return *crossed;
   if (options.warm_start) return run_exact(model, options, options.warm_start);
   if (options.method == Method::exact) return run_exact(model, options, nullptr);
@@ -189,7 +191,8 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
   auto clock = std::chrono::steady_clock::now();
   simplex::FloatOptions search;
   search.budget = options.budget;
-  search.warm_start = float_start;
+  search.warm_start = start.basis;
+  search.warm_start_from_zero_costs = start.from_zero_costs;
   search.progress = detail::float_progress(options, "float ");
   simplex::FloatResult found = simplex::solve_float(model, search);
   if (options.fault == Fault::float_search_fails) {
@@ -250,9 +253,9 @@ certificate::Certificate make_certificate(const model::Model& model, const Solut
 }
 
 CertifiedSolution detail::verified_solve(const model::Model& model, const SolveOptions& options,
-                                         const simplex::Basis* float_start) {
+                                         SearchStart start) {
   CertifiedSolution result;
-  result.solution = solve_from(model, options, float_start);
+  result.solution = solve_from(model, options, start);
   for (int attempt = 0;; ++attempt) {
     if (result.solution.outcome == Outcome::stopped) {
       result.certificate = {};

@@ -5,13 +5,19 @@
 
 namespace plumb::exact::detail {
 
-// solve(), with the float search starting from `float_start` when given (its infeasibility and
-// unboundedness hints then serve as in a cold search).
-Solution solve_from(const model::Model& model, const SolveOptions& options, const simplex::Basis* float_start);
+// Where the float search starts: a basis when given, and whether the zero-cost search found it
+// (simplex::FloatOptions::warm_start_from_zero_costs).
+struct SearchStart {
+  const simplex::Basis* basis = nullptr;
+  bool from_zero_costs = false;
+};
+
+// solve(), with the float search starting from `start` (its infeasibility and unboundedness hints
+// then serve as in a cold search).
+Solution solve_from(const model::Model& model, const SolveOptions& options, SearchStart start);
 
 // solve_from(), the certificate and its independent check; the pure exact engine from scratch
 // when the checker rejects the result.  Never yields an unverified result as certified.
-CertifiedSolution verified_solve(const model::Model& model, const SolveOptions& options,
-                                 const simplex::Basis* float_start);
+CertifiedSolution verified_solve(const model::Model& model, const SolveOptions& options, SearchStart start);
 
 }  // namespace plumb::exact::detail

@@ -115,18 +115,18 @@ FloatResult solve_float(const model::Model& model, const FloatOptions& options) 
       return result;
     }
   }
-  detail::FloatEngine engine(lp, options);
+  detail::FloatEngine engine(lp, options);  // at the logical basis
+  // A correction problem is feasible by construction; with no costs the two searches are one; on
+  // one core the race would take the time of both.
+  bool race = options.feasibility_search && !options.correction && std::thread::hardware_concurrency() >= 2 &&
+              std::any_of(lp.cost.begin(), lp.cost.end(), [](double c) { return c != 0; });
   std::vector<VarStatus> statuses;
   if (options.warm_start && static_cast<int>(options.warm_start->columns.size()) == n &&
       static_cast<int>(options.warm_start->rows.size()) == m) {
     statuses = options.warm_start->columns;
     statuses.insert(statuses.end(), options.warm_start->rows.begin(), options.warm_start->rows.end());
-    engine.start_from(statuses);
+    if (!(race && options.warm_start_from_zero_costs)) engine.start_from(statuses);
   }
-  // A correction problem is feasible by construction; with no costs the two searches are one; on
-  // one core the race would take the time of both.
-  bool race = options.feasibility_search && !options.correction && std::thread::hardware_concurrency() >= 2 &&
-              std::any_of(lp.cost.begin(), lp.cost.end(), [](double c) { return c != 0; });
   if (race)
     return race_with_feasibility_search(engine, lp, statuses.empty() ? nullptr : &statuses, options.budget);
   return result_of(engine, lp, engine.solve());

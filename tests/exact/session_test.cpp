@@ -9,6 +9,7 @@
 #include <gtest/gtest.h>
 
 #include <functional>
+#include <thread>
 
 namespace plumb::exact {
 namespace {
@@ -324,6 +325,29 @@ TEST(NetlibSession, InfeasibleModelsRowsOfTheFarkasProofRelaxedInTurn) {
       if (first.solution.y[i] != 0) support.push_back(i);
     relax_rows_in_turn(model, support);
   }
+}
+
+// chemcom (../shared/netlib-infeas) is proven infeasible by the zero-cost search; with row 84 of
+// its proof freed it is feasible.  The session's next search on the costs must not start from the
+// zero-cost search's basis (simplex::FloatOptions::warm_start_from_zero_costs): it takes the cold
+// search's path, iteration for iteration.
+TEST(NetlibSession, AZeroCostBasisStartsOnlyTheZeroCostSearch) {
+  auto folder = test::shared_dir / "netlib-infeas";
+  if (!test::shared_folder_present(folder)) GTEST_SKIP() << folder << " missing";
+  if (std::thread::hardware_concurrency() < 2) GTEST_SKIP() << "one core: the zero-cost search does not run";
+  auto model = model::read_model((folder / "chemcom.mps.gz").string());
+  Session session(model);
+  CertifiedSolution first = session.solve();
+  ASSERT_EQ(first.solution.outcome, Outcome::infeasible);  // Netlib lp/infeas readme
+  ASSERT_TRUE(first.solution.stats.zero_cost_search);
+  ASSERT_NE(first.solution.y[84], 0);
+  session.set_row_lower(84, std::nullopt);
+  session.set_row_upper(84, std::nullopt);
+  CertifiedSolution relaxed = session.solve();
+  CertifiedSolution cold = certified_solve(session.current());
+  ASSERT_EQ(relaxed.solution.outcome, Outcome::optimal);
+  EXPECT_EQ(relaxed.solution.objective, cold.solution.objective);
+  EXPECT_EQ(relaxed.solution.stats.float_iterations, cold.solution.stats.float_iterations);
 }
 
 }  // namespace

@@ -54,16 +54,20 @@ TEST(ZeroCostSearch, ItsProofOfInfeasibilityIsTaken) {
 }
 
 // Invented, worked by hand: min 3a + 2b with a + b >= 4 and a + 3b >= 6, a, b >= 0.  The
-// vertices are (0, 4), (3, 1) and (6, 0), at costs 8, 11 and 18: the optimum is 8.  The zero-cost
-// search finds a feasible point and is dropped; the main search's result is the same with or
-// without it.
+// vertices are (0, 4), (3, 1) and (6, 0), at costs 8, 11 and 18: the optimum is 8.
+plumb::model::Model two_covering_rows() {
+  return ModelBuilder("two-covering-rows")
+      .column("a", 3)
+      .column("b", 2)
+      .row("cover", {{"a", 1}, {"b", 1}}, Rational(4), {})
+      .row("weighted", {{"a", 1}, {"b", 3}}, Rational(6), {})
+      .build();
+}
+
+// The zero-cost search finds a feasible point and is dropped; the main search's result is the
+// same with or without it.
 TEST(ZeroCostSearch, AFeasibleModelKeepsTheMainResult) {
-  auto model = ModelBuilder("two-covering-rows")
-                   .column("a", 3)
-                   .column("b", 2)
-                   .row("cover", {{"a", 1}, {"b", 1}}, Rational(4), {})
-                   .row("weighted", {{"a", 1}, {"b", 3}}, Rational(6), {})
-                   .build();
+  auto model = two_covering_rows();
   auto raced = solve_float(model);
   auto alone = solve_float(model, main_search_only());
   ASSERT_EQ(raced.status, FloatStatus::optimal) << raced.note;
@@ -72,6 +76,25 @@ TEST(ZeroCostSearch, AFeasibleModelKeepsTheMainResult) {
   EXPECT_EQ(raced.basis.rows, alone.basis.rows);
   EXPECT_EQ(raced.iterations, alone.iterations);
   EXPECT_NEAR(raced.objective, 8.0, 1e-9);
+}
+
+// The same model, warm from its optimal basis: the search on the costs starts there and needs no
+// iteration, unless the basis is marked as the zero-cost search's, when only that search starts
+// there and the search on the costs goes its cold way (the same iterations as cold).
+TEST(ZeroCostSearch, ABasisItFoundIsOnlyItsOwnStart) {
+  if (one_core()) GTEST_SKIP() << "one core: the zero-cost search does not run";
+  auto model = two_covering_rows();
+  auto cold = solve_float(model);
+  ASSERT_EQ(cold.status, FloatStatus::optimal) << cold.note;
+  ASSERT_GT(cold.iterations, 0);
+  FloatOptions warm;
+  warm.warm_start = &cold.basis;
+  EXPECT_EQ(solve_float(model, warm).iterations, 0);
+  warm.warm_start_from_zero_costs = true;
+  auto again = solve_float(model, warm);
+  ASSERT_EQ(again.status, FloatStatus::optimal) << again.note;
+  EXPECT_EQ(again.iterations, cold.iterations);
+  EXPECT_EQ(again.basis.columns, cold.basis.columns);
 }
 
 TEST(ZeroCostSearch, ASearchStopsWhenTheOtherThreadAsks) {
