@@ -75,6 +75,7 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
   bool row_refined = found && found->status == simplex::FloatStatus::infeasible && !options.few_multipliers &&
                      options.fault != Fault::row_not_refined &&
                      options.fault != Fault::auxiliary_not_refined &&
+                     options.fault != Fault::auxiliary_search_fails &&
                      engine.certify_infeasible_row_by_refinement(*start, found->ray_variable);
   std::optional<Solution> proven;
   if (found && found->status == simplex::FloatStatus::infeasible && !row_refined)

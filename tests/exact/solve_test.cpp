@@ -363,9 +363,11 @@ TEST(ExactSolve, HybridCertifiesInfeasibleAndUnboundedOutcomes) {
 // proves infeasibility (by hand: its optimum is 2 and its duals are the multipliers above); when
 // refinement cannot certify that LP's float basis either (gran with one row relaxed does it for
 // real), the exact engine pivots on that LP from the basis: the proof is still its certified
-// optimum, not pivots on the model from the float search's basis.  Both injected here.
+// optimum, not pivots on the model from the float search's basis.  Likewise when the float search
+// on that LP fails (greenbea does it for real): its basis is certified all the same.  All three
+// injected here.
 TEST(ExactSolve, LeastInfeasibilityProvesWhatTheRowDoesNot) {
-  for (Fault fault : {Fault::row_not_refined, Fault::auxiliary_not_refined}) {
+  for (Fault fault : {Fault::row_not_refined, Fault::auxiliary_not_refined, Fault::auxiliary_search_fails}) {
     SolveOptions options;
     options.fault = fault;
     CertifiedSolution result = certified_solve(infeasible_rows_model(), options);

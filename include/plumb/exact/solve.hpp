@@ -35,15 +35,18 @@ struct Progress {
 // (docs/solving.md).  Never set outside tests.
 enum class Fault {
   none,
-  float_search_fails,     // the float search reports failure where it stopped: the exact engine
-                          // certifies or pivots from there
-  result_corrupted,       // the solve path's result is spoiled before the check: the checker rejects
-                          // it and the pure exact engine solves again
-  auxiliary_not_refined,  // refinement does not certify an auxiliary LP's float basis: the exact
-                          // engine pivots on the auxiliary LP from that basis (and row_not_refined
-                          // holds too, so that the least-infeasibility LP is reached)
-  row_not_refined,        // the float search's infeasible row is not proven by refinement: the
-                          // least-infeasibility LP proves infeasibility instead
+  float_search_fails,      // the float search reports failure where it stopped: the exact engine
+                           // certifies or pivots from there
+  result_corrupted,        // the solve path's result is spoiled before the check: the checker rejects
+                           // it and the pure exact engine solves again
+  auxiliary_not_refined,   // refinement does not certify an auxiliary LP's float basis: the exact
+                           // engine pivots on the auxiliary LP from that basis (and row_not_refined
+                           // holds too, so that the least-infeasibility LP is reached)
+  row_not_refined,         // the float search's infeasible row is not proven by refinement: the
+                           // least-infeasibility LP proves infeasibility instead
+  auxiliary_search_fails,  // the float search on an auxiliary LP reports failure where it stopped:
+                           // its basis is certified or pivoted from all the same (and
+                           // row_not_refined holds too)
 };
 
 struct SolveOptions {
