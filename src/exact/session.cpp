@@ -190,8 +190,8 @@ CertifiedSolution Session::solve(const SolveOptions& options) {
   auto started = std::chrono::steady_clock::now();
   // A deletion filter's restore, or a relaxation outside the proof: the last proof of
   // infeasibility may hold still, as the checker decides, for the price of one check.
-  bool reusable = state.infeasible && options.method == Method::hybrid && !options.warm_start &&
-                  options.fault == Fault::none &&
+  bool reusable = state.infeasible && options.earlier_proof && options.method == Method::hybrid &&
+                  !options.warm_start && options.fault == Fault::none &&
                   (state.infeasible_has_few_multipliers || !options.few_multipliers);
   std::vector<std::string> rejections;
   if (reusable && state.earlier_proof_unaffected()) {

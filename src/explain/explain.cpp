@@ -26,6 +26,7 @@ struct Answer {
   bool infeasible = false;
   Terms farkas;             // infeasible: the certificate's terms, all on active entries
   std::vector<Rational> x;  // feasible: a point meeting every active entry
+  bool earlier = false;     // the session answered with an earlier proof
 };
 
 // The session and which entries are active in it.  Every answer comes from a certified solve (or,
@@ -42,6 +43,10 @@ class Prober {
   }
 
   bool active(int id) const { return active_[static_cast<std::size_t>(id)]; }
+  // The next probe is a new search even where the session's last proof still stands: an order's
+  // first probe, so that each order meets its own proofs (with the last order's proof, every
+  // order after the first found that one's subsystem again: gran 6 members against 2).
+  void ask_afresh() { afresh_ = true; }
   void set_active(int id, bool on) {
     if (active(id) == on) return;
     active_[static_cast<std::size_t>(id)] = on;
@@ -71,6 +76,8 @@ class Prober {
     // support 1 036 entries against 154), and 85 s (gran stopped at 60 s) with few multipliers
     // asked for the first solve only.
     solve.few_multipliers = true;
+    solve.earlier_proof = !afresh_;
+    afresh_ = false;
     exact::CertifiedSolution result = session_.solve(solve);
     ++figures_.sub_solves;
     const exact::Solution& s = result.solution;
@@ -81,7 +88,7 @@ class Prober {
       throw std::runtime_error("the independent checker rejected every result of a sub-solve (" +
                                result.verdict.failure + "); this is a bug, please report it");
     if (s.outcome == exact::Outcome::infeasible)
-      return {true, entries_.farkas_terms(session_.current(), s.y), {}};
+      return {true, entries_.farkas_terms(session_.current(), s.y), {}, s.stats.proof == "earlier proof"};
     return {false, {}, s.x};  // optimal under the feasibility goal: a feasible point
   }
 
@@ -95,6 +102,7 @@ class Prober {
  private:
   const Entries& entries_;
   const Options& options_;
+  bool afresh_ = false;
   Explanation& figures_;
   exact::Session session_;
   std::vector<bool> active_;
@@ -160,6 +168,7 @@ struct Found {
   Terms farkas;
   std::map<int, std::vector<Rational>> witness;
   long sub_solves = 0;
+  long earlier_proofs = 0;  // of those, answered by the session's earlier proof
 };
 
 // The deletion filter (Chinneck & Dravnieks 1991) over blocks of candidates, in the
@@ -181,6 +190,7 @@ Found deletion_filter(Prober& prober, const Units& units, std::vector<int> candi
     for (std::size_t k = needed; k < needed + size; ++k) set_unit(candidates[k], false);
     Answer answer = prober.probe(phase);
     ++solves_before;
+    found.earlier_proofs += answer.earlier;
     if (answer.infeasible) {
       std::vector<int> kept = support(answer.farkas, units);
       std::vector<int> next;
@@ -302,9 +312,10 @@ void find_subsystem(const model::Model& model, Prober& prober, const Entries& en
   for (const Order& order : orders) {
     std::vector<int> candidates = in_order(start_units, units, entries, order.bounds_first);
     activate(prober, entries, units, candidates);
+    prober.ask_afresh();
     Found found =
         deletion_filter(prober, units, candidates, first.farkas, std::string("deletion, ") + order.name);
-    out.orders.push_back({order.name, found.units.size(), found.sub_solves});
+    out.orders.push_back({order.name, found.units.size(), found.sub_solves, found.earlier_proofs});
     if (!best || found.units.size() < best->units.size()) best = std::move(found);
     // No order changes the answer when the hard entries alone conflict, nor when the first
     // support is irreducible already: then it is the only infeasible subset of itself.

@@ -485,7 +485,10 @@ nlohmann::ordered_json explain_json(const model::Model& model, const explain::Ex
                   {"hard_used", used(result.hard).size()},  {"first_support", result.support_size}};
   nlohmann::ordered_json orders = nlohmann::ordered_json::array();
   for (const auto& order : result.orders)
-    orders.push_back({{"order", order.name}, {"members", order.members}, {"sub_solves", order.sub_solves}});
+    orders.push_back({{"order", order.name},
+                      {"members", order.members},
+                      {"sub_solves", order.sub_solves},
+                      {"earlier_proofs", order.earlier_proofs}});
   out["search"] = {{"orders", std::move(orders)},           {"sub_solves", result.sub_solves},
                    {"float_seconds", result.float_seconds}, {"exact_seconds", result.exact_seconds},
                    {"seconds", figures.solve_seconds},      {"peak_memory_mib", figures.peak_memory_mib}};

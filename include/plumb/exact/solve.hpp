@@ -60,6 +60,9 @@ struct SolveOptions {
   // Infeasibility proven by the least-infeasibility LP, whose multipliers are few (its duals are
   // bounded by one), rather than by the float search's row of B^-1 (faster, often denser).
   bool few_multipliers = false;
+  // On a session: answer with its last proof of infeasibility when the edits since leave it
+  // standing (docs/solving.md); false asks for a new search, for a proof that may differ.
+  bool earlier_proof = true;
   Fault fault = Fault::none;
 };
 

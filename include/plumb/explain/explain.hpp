@@ -55,6 +55,7 @@ struct OrderTried {
   std::string name;  // "bounds first" or "rows first"
   std::size_t members = 0;
   long sub_solves = 0;
+  long earlier_proofs = 0;  // sub-solves the session answered with its earlier proof
 };
 
 struct Explanation {
