@@ -98,7 +98,12 @@ AuxiliaryOptimum certified_optimum(const model::Model& auxiliary, const SolveOpt
   search.feasibility_search = false;
   AuxiliaryOptimum optimum{simplex::solve_float(auxiliary, search), std::nullopt};
   stats.auxiliary_iterations += optimum.found.iterations;
-  if (options.fault == Fault::auxiliary_search_fails) optimum.found.status = simplex::FloatStatus::failed;
+  if (options.fault == Fault::auxiliary_search_fails) {
+    optimum.found.status = simplex::FloatStatus::failed;
+    optimum.found.note = "failure injected";
+  }
+  if (optimum.found.status == simplex::FloatStatus::failed)
+    stats.float_note = what + ": " + optimum.found.note;
   // A failed search usually gave up near an optimal basis (solve_from does the same on the model):
   // refinement may prove it, else the exact engine pivots on the auxiliary LP from there.  The
   // least-infeasibility LP of greenbea (../shared/netlib-infeas) ends "no stable optimal basis

@@ -662,15 +662,17 @@ FloatStatus FloatEngine::solve() {
     bool perturbed_once = false;
     for (int round = 0; round < 20; ++round) {
       int primal_bad = count_primal_infeasible();
-      int dual_bad = count_dual_infeasible(true);
-      if (primal_bad == 0 && dual_bad == 0) {
-        if (!costs_modified_) {
-          return FloatStatus::optimal;
-        }
+      // Primal feasible on perturbed or shifted costs: back to the model's costs, where the
+      // primal loop removes what dual infeasibility is left without losing primal feasibility
+      // (a dual phase 1 from here had lost it again and again: greenbea's least-infeasibility LP
+      // ended 20 rounds later without a basis).
+      if (primal_bad == 0 && costs_modified_) {
         restore_costs();
         compute_dual();
         continue;
       }
+      int dual_bad = count_dual_infeasible(true);
+      if (primal_bad == 0 && dual_bad == 0) return FloatStatus::optimal;
       LoopEnd end;
       // The primal clean-up prices by Dantzig's rule and only pays where the dual would need
       // its phase 1; dual infeasibilities of boxed variables alone vanish by moving them to

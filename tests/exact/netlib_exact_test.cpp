@@ -201,6 +201,24 @@ INSTANTIATE_TEST_SUITE_P(Netlib, NetlibExactInfeasible,
                                            "ex72a", "box1", "chemcom"),
                          [](const auto& info) { return info.param; });
 
+// greenbea (Netlib lp/infeas readme: infeasible) asked for few multipliers: the float search on
+// its least-infeasibility LP, primal feasible on perturbed costs with a few dual infeasibilities
+// left, must clean them up on the model's costs and end optimal.  It had gone back to a dual
+// phase 1 each time and given up after 20 rounds ("no stable optimal basis after repeated
+// clean-up"), and explain spent minutes in exact pivots.
+TEST(NetlibLeastInfeasibility, GreenbeaFloatSearchEndsOptimal) {
+  if (!shared_folder_present(shared_folder / "netlib-infeas"))
+    GTEST_SKIP() << "no " << shared_folder / "netlib-infeas";
+  model::Model model = model::read_model((shared_folder / "netlib-infeas" / "greenbea.mps.gz").string());
+  SolveOptions options;
+  options.few_multipliers = true;
+  CertifiedSolution result = certified_solve(model, options);
+  ASSERT_TRUE(result.certified()) << result.verdict.failure;
+  EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
+  EXPECT_EQ(result.solution.stats.proof, "least infeasibility");
+  EXPECT_EQ(result.solution.stats.float_note, "");
+}
+
 // Same input, same certificate bytes (common practice for auditable output).
 TEST(NetlibExactDeterminism, SameInputSameCertificateText) {
   if (!shared_folder_present(shared_folder / "netlib")) GTEST_SKIP() << "no " << shared_folder / "netlib";

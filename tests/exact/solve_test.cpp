@@ -375,6 +375,8 @@ TEST(ExactSolve, LeastInfeasibilityProvesWhatTheRowDoesNot) {
     EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
     EXPECT_EQ(result.solution.stats.proof, "least infeasibility");
     EXPECT_EQ(result.solution.y, (std::vector<Rational>{-1, 1}));
+    EXPECT_EQ(result.solution.stats.float_note,
+              fault == Fault::auxiliary_search_fails ? "least infeasibility: failure injected" : "");
   }
 }
 

@@ -79,7 +79,7 @@ struct SolveStats {
   bool repaired = false;       // the starting basis was not optimal exactly: corrected or pivoted
   bool fell_back = false;      // the float phase failed; the exact engine took over from its last basis
   bool zero_cost_search = false;  // the float result came from the search on zero costs (docs/solving.md)
-  std::string float_note;      // why the float phase failed, when it did
+  std::string float_note;  // why the float phase (or a float search on an auxiliary LP) failed, when it did
   std::string phase;           // the exact phase last run (how far a stopped solve got)
   // How the outcome was proven (docs/solving.md): "refined basis", "least infeasibility",
   // "feasible point and ray", "row of the inverse", "edge of the basis", "exact pivots", ...;
