@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <span>
+#include <tuple>
 
 namespace plumb::simplex::detail {
 namespace {
@@ -47,6 +49,9 @@ constexpr double free_variable_box = 1000;
 // dual tolerance, so perturbed reduced costs clear it, and small enough that removing the
 // perturbation at the end costs few primal iterations (common practice).
 constexpr double cost_perturbation = 1e-6;
+
+// The crash's pivots: at least this share of their column's largest entry (the LU's threshold).
+constexpr double crash_pivot_share = 0.1;
 
 }  // namespace
 
@@ -147,6 +152,111 @@ void FloatEngine::start_from(const std::vector<VarStatus>& statuses) {
     }
   }
   std::fill(weight_.begin(), weight_.end(), 1.0);
+}
+
+// The crash (our own, in the spirit of the triangular crash bases of R. E. Bixby, "Implementing
+// the simplex method: the initial basis", ORSA J. Computing 4(3), 1992): the dual simplex from
+// the all-logical basis spends its first iterations bringing in, one equality row at a time, a
+// column to carry the row's right-hand side, and when the cheapest such column reaches back
+// through a chain of rows (stock carried between periods), the rows of B^-1 it later prices with
+// grow dense.  Here row i takes column j when
+//  - j's entry a is at least crash_pivot_share of j's largest (a stable pivot),
+//  - j has no entry in a row already crashed (the basis stays triangular: row i holds a as the
+//    only entry among basic columns, and j's other rows keep their logicals, closed to the crash),
+//  - with y_i = d_j / a every nonbasic column of row i keeps a dual feasible reduced cost (boxed
+//    columns rest at whichever bound suits theirs),
+// preferring columns that close fewer other equality rows, then those that carry the row's
+// right-hand side within their bounds, then the smallest |d_j / a|.  So the
+// dual simplex starts dual feasible wherever the all-logical basis was, on rows carried directly.
+int FloatEngine::crash_equality_rows() {
+  enum RowState : char { open, crashed, closed };
+  std::vector<char> row_state(m_, open);
+  std::vector<double> d(cost_.begin(), cost_.begin() + n_);  // reduced costs; y is 0 on open rows
+  auto feasible_reduced_cost = [&](int k, double v) {
+    if (boxed(k)) return true;
+    const double slack = 0.01 * dual_tolerance;
+    if (lower_[k] > -inf_) return v >= -slack;
+    if (upper_[k] < inf_) return v <= slack;
+    return std::abs(v) <= slack;
+  };
+  auto column_entries = [&](int j) {
+    return std::pair{
+        std::span(lp_.by_column.index)
+            .subspan(lp_.by_column.start[j], lp_.by_column.start[j + 1] - lp_.by_column.start[j]),
+        std::span(lp_.by_column.value)
+            .subspan(lp_.by_column.start[j], lp_.by_column.start[j + 1] - lp_.by_column.start[j])};
+  };
+  struct Candidate {
+    int closes;    // other equality rows the column would close
+    bool outside;  // the value that carries the row lies outside the column's bounds
+    double ratio;
+    int column;
+    double entry;
+  };
+  std::vector<Candidate> candidates, taken;
+  for (int i = 0; i < m_; ++i) {
+    const int logical = n_ + i;
+    if (row_state[i] != open || !fixed(logical)) continue;
+    double activity = 0;
+    for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1]; ++p)
+      activity += lp_.by_row.value[p] * nonbasic_value(lp_.by_row.index[p]);
+    if (std::abs(activity - lower_[logical]) <= primal_tolerance * (1 + std::abs(lower_[logical]))) continue;
+    candidates.clear();
+    for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1]; ++p) {
+      const int j = lp_.by_row.index[p];
+      const double a = lp_.by_row.value[p];
+      if (status_[j] == VarStatus::basic || fixed(j)) continue;
+      auto [rows, values] = column_entries(j);
+      double largest = 0;
+      int closes = 0;
+      bool touches_crashed = false;
+      for (std::size_t t = 0; t < rows.size(); ++t) {
+        largest = std::max(largest, std::abs(values[t]));
+        touches_crashed |= row_state[rows[t]] == crashed;
+        closes += rows[t] != i && row_state[rows[t]] == open && fixed(n_ + rows[t]);
+      }
+      const double value = nonbasic_value(j) + (lower_[logical] - activity) / a;
+      const bool outside = value < lower_[j] - primal_tolerance || value > upper_[j] + primal_tolerance;
+      if (!touches_crashed && std::abs(a) >= crash_pivot_share * largest)
+        candidates.push_back({closes, outside, std::abs(d[j] / a), j, a});
+    }
+    std::sort(candidates.begin(), candidates.end(), [](const Candidate& x, const Candidate& y) {
+      return std::tie(x.closes, x.outside, x.ratio, x.column) <
+             std::tie(y.closes, y.outside, y.ratio, y.column);
+    });
+    for (const Candidate& c : candidates) {
+      const double y = d[c.column] / c.entry;
+      bool dual_feasible = true;
+      for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1] && dual_feasible; ++p) {
+        const int k = lp_.by_row.index[p];
+        if (k != c.column && status_[k] != VarStatus::basic)
+          dual_feasible = feasible_reduced_cost(k, d[k] - lp_.by_row.value[p] * y);
+      }
+      if (!dual_feasible) continue;
+      for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1]; ++p)
+        d[lp_.by_row.index[p]] -= lp_.by_row.value[p] * y;
+      d[c.column] = 0;
+      row_state[i] = crashed;
+      for (int r : column_entries(c.column).first)
+        if (row_state[r] == open) row_state[r] = closed;
+      const int k = position_[logical];
+      head_[k] = c.column;
+      position_[c.column] = k;
+      status_[c.column] = VarStatus::basic;
+      set_nonbasic(logical, VarStatus::at_lower);
+      taken.push_back(c);
+      break;
+    }
+  }
+  // Exact dual steepest-edge weights ||e_k^T B^-1||^2 of the triangular basis: a crashed column's
+  // row of B^-1 is e_i / a, a logical's row -e_k plus a_kj / a at each crashed column's row i.
+  for (const Candidate& c : taken) {
+    weight_[position_[c.column]] = 1 / (c.entry * c.entry);
+    auto [rows, values] = column_entries(c.column);
+    for (std::size_t t = 0; t < rows.size(); ++t)
+      if (row_state[rows[t]] != crashed) weight_[position_[n_ + rows[t]]] += std::pow(values[t] / c.entry, 2);
+  }
+  return static_cast<int>(taken.size());
 }
 
 void FloatEngine::refactor() {

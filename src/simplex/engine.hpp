@@ -31,11 +31,17 @@ class FloatEngine {
   // Starts from the given statuses (one per variable, exactly `rows` basic), else from the
   // all-logical basis.
   void start_from(const std::vector<VarStatus>& statuses);
+  // From the all-logical basis: puts structural columns into the basis in place of the logicals
+  // of equality rows that basis leaves infeasible, keeping the basis triangular and dual
+  // feasible (docs/solving.md, "the crash").  Returns how many went in.
+  int crash_equality_rows();
   FloatStatus solve();
   // Another thread may set `flag` to stop the search at its next poll (FloatStatus::stopped).
   void stop_when(const std::atomic<bool>& flag) { stop_flag_ = &flag; }
 
   const std::vector<VarStatus>& statuses() const { return status_; }
+  // The dual steepest-edge weight of basic variable j's row of B^-1.
+  double dual_weight(int j) const { return weight_[position_[j]]; }
   long iterations() const { return iterations_; }
   double objective() const;  // internal (minimising, scaled) objective of the current point
   const std::string& note() const { return note_; }

@@ -125,8 +125,11 @@ FloatResult solve_float(const model::Model& model, const FloatOptions& options) 
       static_cast<int>(options.warm_start->rows.size()) == m) {
     statuses = options.warm_start->columns;
     statuses.insert(statuses.end(), options.warm_start->rows.begin(), options.warm_start->rows.end());
-    if (!(race && options.warm_start_from_zero_costs)) engine.start_from(statuses);
   }
+  if (!statuses.empty() && !(race && options.warm_start_from_zero_costs))
+    engine.start_from(statuses);
+  else if (options.crash)
+    engine.crash_equality_rows();
   if (race)
     return race_with_feasibility_search(engine, lp, statuses.empty() ? nullptr : &statuses, options.budget);
   return result_of(engine, lp, engine.solve());

@@ -42,6 +42,9 @@ struct FloatOptions {
   // Also search on zero costs, on a second core when there is one, and take its proof of
   // infeasibility when it finds one (docs/solving.md, "the zero-cost search").
   bool feasibility_search = true;
+  // Without a warm start, begin from a triangular, dual feasible crash basis rather than the
+  // all-logical one (docs/solving.md, "the crash").
+  bool crash = true;
 };
 
 struct FloatResult {
