@@ -53,6 +53,12 @@ constexpr double cost_perturbation = 1e-6;
 // The crash's pivots: at least this share of their column's largest entry (the LU's threshold).
 constexpr double crash_pivot_share = 0.1;
 
+// The (index, value) entries of list k.
+std::pair<std::span<const int>, std::span<const double>> entries_of(const SparseVectors& lists, int k) {
+  const int begin = lists.start[k], size = lists.start[k + 1] - begin;
+  return {std::span(lists.index).subspan(begin, size), std::span(lists.value).subspan(begin, size)};
+}
+
 }  // namespace
 
 FloatEngine::FloatEngine(const LpData& lp, const FloatOptions& options, SearchGoal goal)
@@ -172,20 +178,8 @@ int FloatEngine::crash_equality_rows() {
   enum RowState : char { open, crashed, closed };
   std::vector<char> row_state(m_, open);
   std::vector<double> d(cost_.begin(), cost_.begin() + n_);  // reduced costs; y is 0 on open rows
-  auto feasible_reduced_cost = [&](int k, double v) {
-    if (boxed(k)) return true;
-    const double slack = 0.01 * dual_tolerance;
-    if (lower_[k] > -inf_) return v >= -slack;
-    if (upper_[k] < inf_) return v <= slack;
-    return std::abs(v) <= slack;
-  };
-  auto column_entries = [&](int j) {
-    return std::pair{
-        std::span(lp_.by_column.index)
-            .subspan(lp_.by_column.start[j], lp_.by_column.start[j + 1] - lp_.by_column.start[j]),
-        std::span(lp_.by_column.value)
-            .subspan(lp_.by_column.start[j], lp_.by_column.start[j + 1] - lp_.by_column.start[j])};
-  };
+  auto column_entries = [&](int j) { return entries_of(lp_.by_column, j); };
+  auto row_entries = [&](int i) { return entries_of(lp_.by_row, i); };
   struct Candidate {
     int closes;    // other equality rows the column would close
     bool outside;  // the value that carries the row lies outside the column's bounds
@@ -193,52 +187,75 @@ int FloatEngine::crash_equality_rows() {
     int column;
     double entry;
   };
+  // Kept per column as rows leave the open state, so that each row's candidates cost O(1) each
+  // and the whole crash O(nonzeros): a column's largest entry, whether it has an entry in a
+  // crashed row, and how many of its entries lie in open equality rows.
+  std::vector<double> largest(n_, 0.0);
+  std::vector<char> in_crashed_row(n_, 0);
+  std::vector<int> open_equalities(n_, 0);
+  for (int i = 0; i < m_; ++i) {
+    auto [columns, values] = row_entries(i);
+    for (std::size_t t = 0; t < columns.size(); ++t) {
+      largest[columns[t]] = std::max(largest[columns[t]], std::abs(values[t]));
+      open_equalities[columns[t]] += fixed(n_ + i);
+    }
+  }
+  auto leave_open = [&](int i, RowState state) {
+    row_state[i] = state;
+    for (int j : row_entries(i).first) {
+      open_equalities[j] -= fixed(n_ + i);
+      in_crashed_row[j] |= state == crashed;
+    }
+  };
   std::vector<Candidate> candidates, taken;
   for (int i = 0; i < m_; ++i) {
     const int logical = n_ + i;
     if (row_state[i] != open || !fixed(logical)) continue;
+    auto [columns, values] = row_entries(i);
     double activity = 0;
-    for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1]; ++p)
-      activity += lp_.by_row.value[p] * nonbasic_value(lp_.by_row.index[p]);
+    for (std::size_t t = 0; t < columns.size(); ++t) activity += values[t] * nonbasic_value(columns[t]);
     if (std::abs(activity - lower_[logical]) <= primal_tolerance * (1 + std::abs(lower_[logical]))) continue;
     candidates.clear();
-    for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1]; ++p) {
-      const int j = lp_.by_row.index[p];
-      const double a = lp_.by_row.value[p];
-      if (status_[j] == VarStatus::basic || fixed(j)) continue;
-      auto [rows, values] = column_entries(j);
-      double largest = 0;
-      int closes = 0;
-      bool touches_crashed = false;
-      for (std::size_t t = 0; t < rows.size(); ++t) {
-        largest = std::max(largest, std::abs(values[t]));
-        touches_crashed |= row_state[rows[t]] == crashed;
-        closes += rows[t] != i && row_state[rows[t]] == open && fixed(n_ + rows[t]);
-      }
+    for (std::size_t t = 0; t < columns.size(); ++t) {
+      const int j = columns[t];
+      const double a = values[t];
+      if (status_[j] == VarStatus::basic || fixed(j) || in_crashed_row[j] ||
+          std::abs(a) < crash_pivot_share * largest[j])
+        continue;
       const double value = nonbasic_value(j) + (lower_[logical] - activity) / a;
       const bool outside = value < lower_[j] - primal_tolerance || value > upper_[j] + primal_tolerance;
-      if (!touches_crashed && std::abs(a) >= crash_pivot_share * largest)
-        candidates.push_back({closes, outside, std::abs(d[j] / a), j, a});
+      candidates.push_back({open_equalities[j] - 1, outside, std::abs(d[j] / a), j, a});
     }
     std::sort(candidates.begin(), candidates.end(), [](const Candidate& x, const Candidate& y) {
       return std::tie(x.closes, x.outside, x.ratio, x.column) <
              std::tie(y.closes, y.outside, y.ratio, y.column);
     });
+    // The interval of y_i that keeps each nonbasic column of the row dual feasible; a candidate's
+    // own y_i = d_j / a meets its own limit, so one interval serves them all.
+    double below = -inf_, above = inf_;
+    const double slack = 0.01 * dual_tolerance;
+    for (std::size_t t = 0; t < columns.size(); ++t) {
+      const int k = columns[t];
+      const double a = values[t];
+      if (status_[k] == VarStatus::basic || boxed(k) || a == 0) continue;
+      // d_k - a y >= -slack at a lower bound, <= slack at an upper bound, both when free.
+      auto limit = [&](bool upper_limit, double y) {
+        if (upper_limit)
+          above = std::min(above, y);
+        else
+          below = std::max(below, y);
+      };
+      if (lower_[k] > -inf_ || upper_[k] == inf_) limit(a > 0, (d[k] + slack) / a);
+      if (lower_[k] == -inf_) limit(a < 0, (d[k] - slack) / a);
+    }
     for (const Candidate& c : candidates) {
       const double y = d[c.column] / c.entry;
-      bool dual_feasible = true;
-      for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1] && dual_feasible; ++p) {
-        const int k = lp_.by_row.index[p];
-        if (k != c.column && status_[k] != VarStatus::basic)
-          dual_feasible = feasible_reduced_cost(k, d[k] - lp_.by_row.value[p] * y);
-      }
-      if (!dual_feasible) continue;
-      for (int p = lp_.by_row.start[i]; p < lp_.by_row.start[i + 1]; ++p)
-        d[lp_.by_row.index[p]] -= lp_.by_row.value[p] * y;
+      if (y < below || y > above) continue;
+      for (std::size_t t = 0; t < columns.size(); ++t) d[columns[t]] -= values[t] * y;
       d[c.column] = 0;
-      row_state[i] = crashed;
+      leave_open(i, crashed);
       for (int r : column_entries(c.column).first)
-        if (row_state[r] == open) row_state[r] = closed;
+        if (row_state[r] == open) leave_open(r, closed);
       const int k = position_[logical];
       head_[k] = c.column;
       position_[c.column] = k;

@@ -144,4 +144,26 @@ TEST(FloatCrash, AColumnThatWouldBreakDualFeasibilityStaysOut) {
   EXPECT_NEAR(lp.model_objective(engine.objective()), 8, 1e-9);  // x = 2, y = 2 (worked by hand)
 }
 
+// Invented: row r takes y (it closes no other row); then x, though cheapest in row s, has an
+// entry in r, where y is already basic, and stays out (the basis stays triangular); z would make
+// x's reduced cost 0.5 - 2 < 0, so row s keeps its logical.  Optimum 4 at x = 2, z = 1 (worked by
+// hand: the cost is 7 - 1.5 x on 0 <= x <= 2).
+TEST(FloatCrash, AColumnWithAnEntryInACrashedRowStaysOut) {
+  auto model = ModelBuilder("crash-triangular")
+                   .column("x", 1)
+                   .column("y", Rational(1, 2))
+                   .column("z", 2)
+                   .row("r", {{"x", 1}, {"y", 1}}, Rational(2), Rational(2))
+                   .row("s", {{"x", 1}, {"z", 1}}, Rational(3), Rational(3))
+                   .build();
+  LpData lp = scaled(model);
+  FloatOptions options;
+  FloatEngine engine(lp, options);
+  EXPECT_EQ(engine.crash_equality_rows(), 1);
+  EXPECT_NE(engine.statuses()[0], VarStatus::basic);
+  EXPECT_EQ(engine.statuses()[1], VarStatus::basic);
+  ASSERT_EQ(engine.solve(), FloatStatus::optimal) << engine.note();
+  EXPECT_NEAR(lp.model_objective(engine.objective()), 4, 1e-9);
+}
+
 }  // namespace
