@@ -233,18 +233,18 @@ int FloatEngine::crash_equality_rows() {
     // The interval of y_i that keeps each nonbasic column of the row dual feasible; a candidate's
     // own y_i = d_j / a meets its own limit, so one interval serves them all.
     double below = -inf_, above = inf_;
+    auto limit = [&](bool upper_limit, double y) {
+      if (upper_limit)
+        above = std::min(above, y);
+      else
+        below = std::max(below, y);
+    };
     const double slack = 0.01 * dual_tolerance;
     for (std::size_t t = 0; t < columns.size(); ++t) {
       const int k = columns[t];
       const double a = values[t];
-      if (status_[k] == VarStatus::basic || boxed(k) || a == 0) continue;
+      if (status_[k] == VarStatus::basic || boxed(k)) continue;
       // d_k - a y >= -slack at a lower bound, <= slack at an upper bound, both when free.
-      auto limit = [&](bool upper_limit, double y) {
-        if (upper_limit)
-          above = std::min(above, y);
-        else
-          below = std::max(below, y);
-      };
       if (lower_[k] > -inf_ || upper_[k] == inf_) limit(a > 0, (d[k] + slack) / a);
       if (lower_[k] == -inf_) limit(a < 0, (d[k] - slack) / a);
     }
