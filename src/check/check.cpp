@@ -63,7 +63,7 @@ const Integer unscaled = 1;
 std::vector<Rational> times(const Model& m, const std::vector<Rational>& x) {  // A x
   std::vector<ProductSum> sums(static_cast<std::size_t>(m.row_count()));
   for (int j = 0; j < m.column_count(); ++j) {
-    if (x[j] == 0) continue;
+    if (x[j].is_zero()) continue;
     auto rows = m.matrix.column_rows(j);
     auto values = m.matrix.column_values(j);
     for (std::size_t k = 0; k < rows.size(); ++k) sums[rows[k]].add(values[k], x[j]);
@@ -79,6 +79,8 @@ std::vector<Rational> transpose_times(const Model& m, const std::vector<Rational
   for (int j = 0; j < m.column_count(); ++j) {
     auto rows = m.matrix.column_rows(j);
     auto values = m.matrix.column_values(j);
+    // A Farkas y is mostly zeros: a column meeting none of its rows needs no sum.
+    if (std::all_of(rows.begin(), rows.end(), [&](int i) { return y[i].is_zero(); })) continue;
     ProductSum sum;
     for (std::size_t k = 0; k < rows.size(); ++k) sum.add(values[k], y[rows[k]]);
     out[j] = sum.value();
@@ -101,9 +103,11 @@ Rational min_cost_dot(const Model& m, const CommonDenominator& v) {
 }
 
 // Adds w times the side its sign presses on; the sign rules have made sure that side is finite.
+// Signs are read with sign(): boost compares a rational with the literal 0 through a temporary
+// rational, an allocation per test, and these tests run once per row and column.
 void add_pressed(ProductSum& sum, const Rational& w, const Side& when_positive, const Side& when_negative) {
-  if (w > 0) sum.add(w, *when_positive);
-  if (w < 0) sum.add(w, *when_negative);
+  if (w.sign() > 0) sum.add(w, *when_positive);
+  if (w.sign() < 0) sum.add(w, *when_negative);
 }
 
 // In the require_ functions the quantity is w / scale.  `what` names the row or column; it is
@@ -133,10 +137,10 @@ CommonDenominator require_feasible(const Model& m, const std::vector<Rational>& 
 void require_sign(const auto& what, const char* quantity, const Rational& w, const Integer& scale,
                   const Side& when_positive, const char* positive_limit, const Side& when_negative,
                   const char* negative_limit) {
-  if (w > 0 && !when_positive)
+  if (w.sign() > 0 && !when_positive)
     throw Failure{what() + ": " + quantity + " = " + amount(w / scale) + " is positive, which needs a finite " +
                   positive_limit + ", and there is none"};
-  if (w < 0 && !when_negative)
+  if (w.sign() < 0 && !when_negative)
     throw Failure{what() + ": " + quantity + " = " + amount(w / scale) + " is negative, which needs a finite " +
                   negative_limit + ", and there is none"};
 }
@@ -145,10 +149,10 @@ void require_sign(const auto& what, const char* quantity, const Rational& w, con
 void require_unlimited(const auto& what, const char* quantity, const Rational& w, const Integer& scale,
                        const Side& lower, const Side& upper, const char* noun) {
   auto head = [&] { return "ray: " + what() + ": " + quantity + " = " + amount(w / scale); };
-  if (w < 0 && lower)
+  if (w.sign() < 0 && lower)
     throw Failure{head() + " is negative, but the lower " + noun + " " + amount(*lower) +
                   " is finite, so the ray leaves the model"};
-  if (w > 0 && upper)
+  if (w.sign() > 0 && upper)
     throw Failure{head() + " is positive, but the upper " + noun + " " + amount(*upper) +
                   " is finite, so the ray leaves the model"};
 }
