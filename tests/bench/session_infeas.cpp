@@ -72,12 +72,12 @@ Timed cold_solve(const model::Model& model, exact::Goal goal, double time_limit)
 struct Against {
   std::vector<double> all, relaxed, restored;  // per model: the median ratio of its re-solves
   int within_float = 0;
-  void add_model(const std::vector<double>& by_pass0, const std::vector<double>& by_pass1) {
-    std::vector<double> both = by_pass0;
-    both.insert(both.end(), by_pass1.begin(), by_pass1.end());
+  void add_model(const std::vector<double>& relaxed_ratios, const std::vector<double>& restored_ratios) {
+    std::vector<double> both = relaxed_ratios;
+    both.insert(both.end(), restored_ratios.begin(), restored_ratios.end());
     all.push_back(median(both));
-    relaxed.push_back(median(by_pass0));
-    restored.push_back(median(by_pass1));
+    relaxed.push_back(median(relaxed_ratios));
+    restored.push_back(median(restored_ratios));
   }
   std::string summary() const {
     char text[160];
