@@ -123,47 +123,47 @@ TEST(FloatCrash, ItsDualSteepestEdgeWeightsAreExact) {
   }
 }
 
-// Invented: in row r the column y closes no other equality row and is tried first, but with
-// y_r = 3 (its cost) x's reduced cost 1 - 3 would be dual infeasible; x, which closes row s, is
-// the crash's choice.
-TEST(FloatCrash, AColumnThatWouldBreakDualFeasibilityStaysOut) {
-  auto model = ModelBuilder("crash-choice")
-                   .column("x", 1)
-                   .column("y", 3)
-                   .column("z", 1)
-                   .row("r", {{"x", 1}, {"y", 1}}, Rational(4), Rational(4))
-                   .row("s", {{"x", 1}, {"z", 1}}, Rational(2), Rational(2))
-                   .build();
+// Invented shape of the choice tests: rows r: x + y = r_side and s: x + z = s_side, x costing 1;
+// the engine right after its crash.
+struct CrashedPair {
+  CrashedPair(Rational cost_y, Rational cost_z, Rational r_side, Rational s_side)
+      : model(ModelBuilder("crash-pair")
+                  .column("x", 1)
+                  .column("y", cost_y)
+                  .column("z", cost_z)
+                  .row("r", {{"x", 1}, {"y", 1}}, r_side, r_side)
+                  .row("s", {{"x", 1}, {"z", 1}}, s_side, s_side)
+                  .build()) {}
+  plumb::model::Model model;
   LpData lp = scaled(model);
   FloatOptions options;
-  FloatEngine engine(lp, options);
-  EXPECT_EQ(engine.crash_equality_rows(), 1);
-  EXPECT_EQ(engine.statuses()[0], VarStatus::basic);
-  EXPECT_NE(engine.statuses()[1], VarStatus::basic);
-  ASSERT_EQ(engine.solve(), FloatStatus::optimal) << engine.note();
-  EXPECT_NEAR(lp.model_objective(engine.objective()), 8, 1e-9);  // x = 2, y = 2 (worked by hand)
+  FloatEngine engine{lp, options};
+  int crashed = engine.crash_equality_rows();
+};
+
+// In row r the column y closes no other equality row and is tried first, but with y_r = 3 (its
+// cost) x's reduced cost 1 - 3 would be dual infeasible; x, which closes row s, is the crash's
+// choice.
+TEST(FloatCrash, AColumnThatWouldBreakDualFeasibilityStaysOut) {
+  CrashedPair pair(3, 1, 4, 2);
+  EXPECT_EQ(pair.crashed, 1);
+  EXPECT_EQ(pair.engine.statuses()[0], VarStatus::basic);
+  EXPECT_NE(pair.engine.statuses()[1], VarStatus::basic);
+  ASSERT_EQ(pair.engine.solve(), FloatStatus::optimal) << pair.engine.note();
+  EXPECT_NEAR(pair.lp.model_objective(pair.engine.objective()), 8, 1e-9);  // x = 2, y = 2 (worked by hand)
 }
 
-// Invented: row r takes y (it closes no other row); then x, though cheapest in row s, has an
-// entry in r, where y is already basic, and stays out (the basis stays triangular); z would make
-// x's reduced cost 0.5 - 2 < 0, so row s keeps its logical.  Optimum 4 at x = 2, z = 1 (worked by
-// hand: the cost is 7 - 1.5 x on 0 <= x <= 2).
+// Row r takes y (it closes no other row); then x, though cheapest in row s, has an entry in r,
+// where y is already basic, and stays out (the basis stays triangular); z would make x's reduced
+// cost 0.5 - 2 < 0, so row s keeps its logical.  Optimum 4 at x = 2, z = 1 (worked by hand: the
+// cost is 7 - 1.5 x on 0 <= x <= 2).
 TEST(FloatCrash, AColumnWithAnEntryInACrashedRowStaysOut) {
-  auto model = ModelBuilder("crash-triangular")
-                   .column("x", 1)
-                   .column("y", Rational(1, 2))
-                   .column("z", 2)
-                   .row("r", {{"x", 1}, {"y", 1}}, Rational(2), Rational(2))
-                   .row("s", {{"x", 1}, {"z", 1}}, Rational(3), Rational(3))
-                   .build();
-  LpData lp = scaled(model);
-  FloatOptions options;
-  FloatEngine engine(lp, options);
-  EXPECT_EQ(engine.crash_equality_rows(), 1);
-  EXPECT_NE(engine.statuses()[0], VarStatus::basic);
-  EXPECT_EQ(engine.statuses()[1], VarStatus::basic);
-  ASSERT_EQ(engine.solve(), FloatStatus::optimal) << engine.note();
-  EXPECT_NEAR(lp.model_objective(engine.objective()), 4, 1e-9);
+  CrashedPair pair(Rational(1, 2), 2, 2, 3);
+  EXPECT_EQ(pair.crashed, 1);
+  EXPECT_NE(pair.engine.statuses()[0], VarStatus::basic);
+  EXPECT_EQ(pair.engine.statuses()[1], VarStatus::basic);
+  ASSERT_EQ(pair.engine.solve(), FloatStatus::optimal) << pair.engine.note();
+  EXPECT_NEAR(pair.lp.model_objective(pair.engine.objective()), 4, 1e-9);
 }
 
 }  // namespace
