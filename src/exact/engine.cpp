@@ -3,10 +3,12 @@
 #include "refine.hpp"
 
 #include <algorithm>
+#include <chrono>
 #include <cmath>
 #include <iterator>
 #include <limits>
 #include <stdexcept>
+#include <thread>
 
 namespace plumb::exact::detail {
 namespace {
@@ -213,10 +215,19 @@ bool RationalEngine::rest_for_refinement(const simplex::Basis& basis, RefinedSol
     position_[head_[p]] = p;
     status_[head_[p]] = VarStatus::basic;
   }
+  return solver.factorize(m_, basic_columns());
+}
+
+std::vector<SparseColumn> RationalEngine::basic_columns() const {
   std::vector<SparseColumn> columns(static_cast<std::size_t>(m_));
   for (int p = 0; p < m_; ++p) columns[p] = constraint_column(head_[p]);
-  return solver.factorize(m_, columns);
+  return columns;
 }
+
+// When x_B takes longer than this, y is solved on a second core beside it (TransposedSolveBeside);
+// not on the smallest models, whose sessions' re-solves take a millisecond or so in all.
+constexpr std::chrono::milliseconds second_core_delay{20};
+constexpr int rows_for_second_core = 300;
 
 bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
                                            simplex::CorrectionProblem* correction) {
@@ -229,21 +240,32 @@ bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
   rows_.clear();
   correction_was_approximate_ = correction && clearly_not_optimal(solver, rhs, *correction);
   if (correction_was_approximate_) return false;
+  // head_ and the costs stay as they are until the solve beside is taken or cancelled.
+  std::optional<TransposedSolveBeside> beside;
+  if (m_ >= rows_for_second_core && std::thread::hardware_concurrency() >= 2)
+    beside.emplace(
+        refine_limits(), m_,
+        [this] {
+          return TransposedSolveBeside::System{basic_columns(), basic_costs()};
+        },
+        second_core_delay);
   auto x_basic = solver.solve(rhs);
   if (!x_basic) return false;
   for (int p = 0; p < m_; ++p) value_[head_[p]].backend().swap((*x_basic)[p].backend());
   bool optimal = !infeasible_basis();
   if (!optimal && !correction) return false;
 
-  auto y = solver.solve_transposed(basic_costs());
+  if (beside && beside->cancel_if_waiting()) beside.reset();
+  auto y = beside ? beside->take(budget_) : solver.solve_transposed(basic_costs());
   if (!y) return false;
+  const RefinedSolver& dual_solver = beside ? beside->solver() : solver;
   // Signs of the reduced costs d_j = c'_j - a_j^T y for y = P / Q (y's fractions are long:
   // thousands of bits on some Netlib bases).  A double estimate decides a sign when it exceeds a
   // bound on its own rounding error, a floating-point filter in the manner of S. Fortune and
   // C. J. Van Wyk ("Efficient exact arithmetic for computational geometry", SoCG 1993); the few
   // others, zero or nearly so, are computed exactly.  The independent checker proves the result.
-  const std::vector<Integer>& numerators = solver.common_numerators();
-  const Integer& denominator = solver.common_denominator();
+  const std::vector<Integer>& numerators = dual_solver.common_numerators();
+  const Integer& denominator = dual_solver.common_denominator();
   std::vector<double> dual_estimate(static_cast<std::size_t>(m_));
   std::vector<char> estimate_usable(static_cast<std::size_t>(m_));
   for (int i = 0; i < m_; ++i) {

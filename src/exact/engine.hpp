@@ -100,6 +100,7 @@ class RationalEngine {
   bool farkas_holds(const std::vector<Integer>& numerators, int sign);
   RefineLimits refine_limits() const;
   bool rest_for_refinement(const simplex::Basis& basis, RefinedSolver& solver);
+  std::vector<SparseColumn> basic_columns() const;  // B, by position
   simplex::CorrectionProblem correction_problem(const std::vector<double>& reduced_costs) const;
   bool clearly_not_optimal(RefinedSolver& solver, const std::vector<Rational>& rhs,
                            simplex::CorrectionProblem& correction);

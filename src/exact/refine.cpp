@@ -1,6 +1,7 @@
 #include "refine.hpp"
 
 #include <algorithm>
+#include <chrono>
 #include <cmath>
 #include <limits>
 
@@ -469,6 +470,53 @@ bool RefinedSolver::prove(const IntegerMatrix& matrix, Integer common, std::vect
   }
   mpz_divexact(z(seed_), z(common), z(shared));
   return true;
+}
+
+TransposedSolveBeside::TransposedSolveBeside(RefineLimits limits, int m, std::function<System()> system,
+                                             std::chrono::milliseconds delay)
+    : solver_([&] {
+        limits.budget = &own_budget_;
+        return limits;
+      }()) {
+  answer_ =
+      std::async(std::launch::async,
+                 [this, m, system = std::move(system), delay]() -> std::optional<std::vector<Rational>> {
+                   {
+                     std::unique_lock lock(mutex_);
+                     if (cancelled_signal_.wait_for(lock, delay, [this] { return cancelled_; }))
+                       return std::nullopt;
+                     started_ = true;
+                   }
+                   try {
+                     System inputs = system();
+                     if (!solver_.factorize(m, inputs.columns)) return std::nullopt;
+                     return solver_.solve_transposed(inputs.c);
+                   } catch (const run::Stopped&) {
+                     return std::nullopt;  // abandoned, or interrupted (which the caller sees too)
+                   }
+                 });
+}
+
+TransposedSolveBeside::~TransposedSolveBeside() {
+  cancel_if_waiting();
+  own_budget_.abandon();
+  if (answer_.valid()) answer_.wait();
+}
+
+bool TransposedSolveBeside::cancel_if_waiting() {
+  {
+    std::lock_guard lock(mutex_);
+    if (started_) return false;
+    cancelled_ = true;
+  }
+  cancelled_signal_.notify_one();
+  return true;
+}
+
+std::optional<std::vector<Rational>> TransposedSolveBeside::take(run::Budget* budget) {
+  while (answer_.wait_for(std::chrono::milliseconds(1)) != std::future_status::ready)
+    run::stop_if_exhausted(budget, [] { return std::string("solving for the duals"); });
+  return answer_.get();
 }
 
 }  // namespace plumb::exact::detail

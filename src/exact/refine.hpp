@@ -5,6 +5,11 @@
 #include "factor.hpp"
 #include "plumb/simplex/float_lu.hpp"
 
+#include <chrono>
+#include <condition_variable>
+#include <functional>
+#include <future>
+#include <mutex>
 #include <optional>
 #include <vector>
 
@@ -124,6 +129,42 @@ class RefinedSolver {
   std::vector<double> work_;
   std::vector<long> exponents_;  // float_solve(): binary exponents of the residual over D
   std::vector<Wide> wide_;       // step_in_machine_integers(): the new residual
+};
+
+// B^T y = c solved on a second thread by a solver of its own while the caller solves B x = b:
+// the two systems share only B, and on long fractions each takes seconds (maros-r7: 1.9 s for
+// x_B, then 0.9 s for y seeded with x_B's denominator).  On short ones a second factorization
+// costs more than it saves (degen3: 15 -> 24 ms), so the thread waits `delay` first: the caller
+// cancels it when x_B came sooner and solves for y itself, seeded.  Dropped, it is abandoned
+// and joined.
+class TransposedSolveBeside {
+ public:
+  struct System {
+    std::vector<SparseColumn> columns;  // B, by position
+    std::vector<Rational> c;
+  };
+  // `system` is called on the second thread once the delay has passed: what it reads must not
+  // change until cancel_if_waiting() or take() returns.
+  TransposedSolveBeside(RefineLimits limits, int m, std::function<System()> system,
+                        std::chrono::milliseconds delay);
+  ~TransposedSolveBeside();
+  TransposedSolveBeside(const TransposedSolveBeside&) = delete;
+  TransposedSolveBeside& operator=(const TransposedSolveBeside&) = delete;
+  // True when the thread was still waiting: then it never starts, and y is the caller's to solve.
+  bool cancel_if_waiting();
+  // Waits for y, polling the caller's `budget` (run::Stopped when it is exhausted); nullopt as
+  // RefinedSolver::solve_transposed.  Once only, and not after a cancellation.
+  std::optional<std::vector<Rational>> take(run::Budget* budget);
+  // Its numerators and common denominator, once taken.
+  const RefinedSolver& solver() const { return solver_; }
+
+ private:
+  run::Budget own_budget_;  // no limits: abandoned by the destructor
+  RefinedSolver solver_;
+  std::mutex mutex_;
+  std::condition_variable cancelled_signal_;
+  bool cancelled_ = false, started_ = false;  // guarded by mutex_
+  std::future<std::optional<std::vector<Rational>>> answer_;
 };
 
 }  // namespace plumb::exact::detail

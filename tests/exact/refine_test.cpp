@@ -5,9 +5,11 @@
 
 #include <gtest/gtest.h>
 
+#include <chrono>
 #include <cmath>
 #include <optional>
 #include <random>
+#include <thread>
 #include <vector>
 
 namespace plumb::exact::detail {
@@ -263,6 +265,70 @@ TEST(Refine, ZeroRightHandSideGivesZero) {
   auto x = solver.solve(std::vector<Rational>(10, Rational(0)));
   ASSERT_TRUE(x);
   for (const auto& v : *x) EXPECT_EQ(v, 0);
+}
+
+// y solved on a second thread (TransposedSolveBeside, as certification does when x_B is slow) is
+// the rational LU's y, and its solver holds it over one common denominator.
+TEST(Refine, TheDualSolvedBesideAgreesWithTheRationalLU) {
+  std::mt19937 random(20261205);
+  for (int m : {6, 30, 60}) {
+    Columns columns = random_matrix(m, 0.1, true, random);
+    std::vector<Rational> c = random_vector(m, true, random);
+    auto expected = reference(m, columns, c, true);
+    if (!expected) continue;
+    TransposedSolveBeside beside(
+        RefineLimits{}, m,
+        [&] {
+          return TransposedSolveBeside::System{columns, c};
+        },
+        std::chrono::milliseconds(0));
+    auto y = beside.take(nullptr);
+    ASSERT_TRUE(y) << m;
+    EXPECT_EQ(*y, *expected) << m;
+    const auto& numerators = beside.solver().common_numerators();
+    for (int i = 0; i < m; ++i)
+      EXPECT_EQ(Rational(numerators[i]) / Rational(beside.solver().common_denominator()), (*y)[i]) << i;
+  }
+}
+
+// The caller's budget binds while it waits: an exhausted one stops the wait with its reason, and
+// the solve beside is abandoned when dropped.
+TEST(Refine, WaitingForTheDualBesideHonoursTheCallersBudget) {
+  std::mt19937 random(5);
+  const int m = 250;  // dense fractions: the solve takes far longer than the first poll
+  Columns columns = random_matrix(m, 0.6, true, random);
+  run::Budget spent(0.0, std::nullopt);
+  std::vector<Rational> c = random_vector(m, true, random);
+  TransposedSolveBeside beside(
+      RefineLimits{}, m,
+      [&] {
+        return TransposedSolveBeside::System{columns, c};
+      },
+      std::chrono::milliseconds(0));
+  try {
+    beside.take(&spent);
+    ADD_FAILURE() << "the wait ignored an exhausted budget";
+  } catch (const run::Stopped& stopped) {
+    EXPECT_EQ(stopped.reason, run::StopReason::time_limit);
+  }
+}
+
+// Cancelled while it waits out its delay, the solve beside never starts (its system is never
+// asked for) and is dropped at once, not an hour later.
+TEST(Refine, ADualBesideCancelledInItsDelayNeverStarts) {
+  bool asked = false;
+  {
+    TransposedSolveBeside beside(
+        RefineLimits{}, 1,
+        [&] {
+          asked = true;
+          return TransposedSolveBeside::System{{SparseColumn{{0}, {Rational(2)}}}, {Rational(1)}};
+        },
+        std::chrono::hours(1));
+    std::this_thread::sleep_for(std::chrono::milliseconds(50));  // so that it waits already
+    EXPECT_TRUE(beside.cancel_if_waiting());
+  }
+  EXPECT_FALSE(asked);
 }
 
 }  // namespace
