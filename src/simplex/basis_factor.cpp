@@ -312,10 +312,17 @@ FloatBasisFactor::Singularity FloatBasisFactor::factorize(int m, const SparseVec
   return singular;
 }
 
+// Without a branch per entry: after dense work the nonzeros fall without pattern, and a
+// mispredicted branch per entry had made this scan 5 % of dfl001's search.
 void FloatSparseVector::rebuild_index() {
-  index.clear();
-  for (int i = 0; i < static_cast<int>(values.size()); ++i)
-    if (values[i] != 0) index.push_back(i);
+  const int n = static_cast<int>(values.size());
+  index.resize(n);
+  int count = 0;
+  for (int i = 0; i < n; ++i) {
+    index[count] = i;
+    count += values[i] != 0;
+  }
+  index.resize(count);
 }
 
 void ListPool::reset(int lists, const std::vector<int>& room) {
