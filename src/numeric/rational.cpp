@@ -173,8 +173,11 @@ Decimal to_decimal(const Rational& value, int significant) {
   if (value == 0) return {"0", false};
   Integer numerator = abs(boost::multiprecision::numerator(value));
   Integer denominator = boost::multiprecision::denominator(value);
-  // Find the decimal exponent e with 10^e <= |value| < 10^(e+1).
-  long exponent = static_cast<long>(numerator.str().size()) - static_cast<long>(denominator.str().size());
+  // Find the decimal exponent e with 10^e <= |value| < 10^(e+1), from the digit counts (GMP's
+  // may be one too many; the loops settle it).  Printing both to count their digits had been two
+  // of the three conversions to decimal per long value of a solution's output.
+  long exponent = static_cast<long>(mpz_sizeinbase(numerator.backend().data(), 10)) -
+                  static_cast<long>(mpz_sizeinbase(denominator.backend().data(), 10));
   auto scaled_compare = [&](long e) {  // |value| >= 10^e ?
     return e >= 0 ? numerator >= denominator * power_of_ten(e) : numerator * power_of_ten(-e) >= denominator;
   };
