@@ -291,8 +291,9 @@ TEST(Refine, TheDualSolvedBesideAgreesWithTheRationalLU) {
   }
 }
 
-// The caller's budget binds while it waits: an exhausted one stops the wait with its reason, and
-// the solve beside is abandoned when dropped.
+// The caller's budget binds while it waits: an exhausted one stops the wait with its reason.
+// (That the solve still running is then abandoned as it drops is not observed here: it only
+// shortens the wait.)
 TEST(Refine, WaitingForTheDualBesideHonoursTheCallersBudget) {
   std::mt19937 random(5);
   const int m = 250;  // dense fractions: the solve takes far longer than the first poll
