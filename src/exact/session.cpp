@@ -6,6 +6,7 @@
 #include <chrono>
 #include <map>
 #include <optional>
+#include <set>
 #include <stdexcept>
 #include <string>
 #include <utility>
@@ -33,6 +34,11 @@ struct Session::State {
   // them again for every certificate had taken a sixth of its time.
   std::map<int, nlohmann::ordered_json> changed_rows, changed_columns;
   Goal goal = Goal::model_objective;
+  // The float LP of current(), made at the first float search; the rows and columns edited since
+  // it was last brought up to date, and whether the objective changed.
+  std::optional<simplex::FloatModel> float_model;
+  std::set<int> stale_rows, stale_columns;
+  bool stale_objective = false;
   simplex::Basis basis;  // where the last solve ended; empty before the first
   bool basis_from_zero_costs = false;  // found by the zero-cost search (detail::SearchStart)
   // The last proof of infeasibility a solve found, and the limits (lower, upper) its rows and
@@ -56,6 +62,19 @@ struct Session::State {
   }
 
   const model::Model& current_model() const { return edited ? *edited : original; }
+  const simplex::FloatModel& float_model_now() {
+    if (!float_model) {
+      float_model.emplace(current_model());
+    } else {
+      for (int row : stale_rows) float_model->take_row(current_model(), row);
+      for (int column : stale_columns) float_model->take_column(current_model(), column);
+      if (stale_objective) float_model->take_objective(current_model());
+    }
+    stale_rows.clear();
+    stale_columns.clear();
+    stale_objective = false;
+    return *float_model;
+  }
   model::Model& copy() {
     if (!edited) {
       edited = original;
@@ -69,12 +88,14 @@ struct Session::State {
     require_index(row, original.row_count(), "row");
     remember(row, current_model().rows[row], rows_then);
     copy().rows[row].*side = std::move(value);
+    stale_rows.insert(row);
     note("row", row, edited->rows, original.rows, changed_rows);
   }
   void edit_column(int column, model::Side model::Column::*side, model::Side value) {
     require_index(column, original.column_count(), "column");
     remember(column, current_model().columns[column], columns_then);
     copy().columns[column].*side = std::move(value);
+    stale_columns.insert(column);
     note("column", column, edited->columns, original.columns, changed_columns);
   }
   template <class Item>
@@ -149,6 +170,7 @@ void Session::restore_row(int row) {
   if (!state_->changed_rows.contains(row)) return;
   State::remember(row, state_->edited->rows[row], state_->rows_then);
   state_->edited->rows[row] = state_->original.rows[row];
+  state_->stale_rows.insert(row);
   state_->changed_rows.erase(row);
 }
 
@@ -157,6 +179,7 @@ void Session::restore_column(int column) {
   if (!state_->changed_columns.contains(column)) return;
   State::remember(column, state_->edited->columns[column], state_->columns_then);
   state_->edited->columns[column] = state_->original.columns[column];
+  state_->stale_columns.insert(column);
   state_->changed_columns.erase(column);
 }
 
@@ -177,6 +200,7 @@ void Session::set_goal(Goal goal) {
     objective = state_->original.objective;
   }
   state_->goal = goal;
+  state_->stale_objective = true;
 }
 
 Goal Session::goal() const { return state_->goal; }
@@ -213,8 +237,10 @@ CertifiedSolution Session::solve(const SolveOptions& options) {
                          result.verdict.failure);
   }
 
-  detail::SearchStart start{options.search_start};
-  if (!state.basis.empty()) start = {&state.basis, state.basis_from_zero_costs};
+  detail::SearchStart start;
+  start.basis = state.basis.empty() ? options.search_start : &state.basis;
+  start.from_zero_costs = !state.basis.empty() && state.basis_from_zero_costs;
+  start.float_model = [&state]() -> const simplex::FloatModel& { return state.float_model_now(); };
   CertifiedSolution result = detail::verified_solve(current(), options, start);
   result.rejections.insert(result.rejections.begin(), rejections.begin(), rejections.end());
   if (result.solution.outcome == Outcome::stopped) return result;

@@ -184,7 +184,8 @@ Solution solve(const model::Model& model, const SolveOptions& options) {
   return detail::solve_from(model, options, {});
 }
 
-Solution detail::solve_from(const model::Model& model, const SolveOptions& options, SearchStart start) {
+Solution detail::solve_from(const model::Model& model, const SolveOptions& options,
+                            const SearchStart& start) {
   if (std::optional<Solution> crossed = crossed_limits(model)) return *crossed;
   if (options.warm_start) return run_exact(model, options, options.warm_start);
   if (options.method == Method::exact) return run_exact(model, options, nullptr);
@@ -195,7 +196,8 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
   search.warm_start = start.basis;
   search.warm_start_from_zero_costs = start.from_zero_costs;
   search.progress = detail::float_progress(options, "float ");
-  simplex::FloatResult found = simplex::solve_float(model, search);
+  simplex::FloatResult found = start.float_model ? simplex::solve_float(start.float_model(), search)
+                                                 : simplex::solve_float(model, search);
   if (options.fault == Fault::float_search_fails) {
     found.status = simplex::FloatStatus::failed;
     found.note = "failure injected";
@@ -254,7 +256,7 @@ certificate::Certificate make_certificate(const model::Model& model, const Solut
 }
 
 CertifiedSolution detail::verified_solve(const model::Model& model, const SolveOptions& options,
-                                         SearchStart start) {
+                                         const SearchStart& start) {
   CertifiedSolution result;
   result.solution = solve_from(model, options, start);
   for (int attempt = 0;; ++attempt) {

@@ -2,22 +2,28 @@
 #pragma once
 
 #include "plumb/exact/solve.hpp"
+#include "plumb/simplex/float_simplex.hpp"
+
+#include <functional>
 
 namespace plumb::exact::detail {
 
 // Where the float search starts: a basis when given, and whether the zero-cost search found it
-// (simplex::FloatOptions::warm_start_from_zero_costs).
+// (simplex::FloatOptions::warm_start_from_zero_costs); and, when a session keeps one, the float
+// LP of the model solved, asked for only when the float search runs.
 struct SearchStart {
   const simplex::Basis* basis = nullptr;
   bool from_zero_costs = false;
+  std::function<const simplex::FloatModel&()> float_model;
 };
 
 // solve(), with the float search starting from `start` (its infeasibility and unboundedness hints
 // then serve as in a cold search).
-Solution solve_from(const model::Model& model, const SolveOptions& options, SearchStart start);
+Solution solve_from(const model::Model& model, const SolveOptions& options, const SearchStart& start);
 
 // solve_from(), the certificate and its independent check; the pure exact engine from scratch
 // when the checker rejects the result.  Never yields an unverified result as certified.
-CertifiedSolution verified_solve(const model::Model& model, const SolveOptions& options, SearchStart start);
+CertifiedSolution verified_solve(const model::Model& model, const SolveOptions& options,
+                                 const SearchStart& start);
 
 }  // namespace plumb::exact::detail

@@ -10,6 +10,7 @@
 #include <condition_variable>
 #include <exception>
 #include <mutex>
+#include <optional>
 #include <thread>
 
 namespace plumb::simplex {
@@ -93,17 +94,39 @@ FloatResult race_with_feasibility_search(detail::FloatEngine& main, const detail
 
 }  // namespace
 
+FloatModel::FloatModel(const model::Model& model)
+    : lp_(std::make_unique<detail::LpData>(detail::lp_from_model(model))) {
+  detail::scale(*lp_);
+}
+FloatModel::~FloatModel() = default;
+FloatModel::FloatModel(FloatModel&&) noexcept = default;
+FloatModel& FloatModel::operator=(FloatModel&&) noexcept = default;
+
+void FloatModel::take_row(const model::Model& model, int row) {
+  detail::take_row_limits(*lp_, row, model.rows[row]);
+}
+void FloatModel::take_column(const model::Model& model, int column) {
+  detail::take_column_limits(*lp_, column, model.columns[column]);
+}
+void FloatModel::take_objective(const model::Model& model) { detail::take_objective(*lp_, model.objective); }
+
 FloatResult solve_float(const model::Model& model, const FloatOptions& options) {
-  FloatResult result;
-  detail::LpData lp = detail::lp_from_model(model);
+  return solve_float(FloatModel(model), options);
+}
+
+FloatResult solve_float(const FloatModel& model, const FloatOptions& options) {
+  std::optional<detail::LpData> corrected;
   if (const CorrectionProblem* correction = options.correction) {
-    lp.lower = correction->lower;
-    lp.upper = correction->upper;
-    lp.cost = correction->cost;
-    lp.sense = 1;
-    lp.constant = 0;
+    corrected = *model.lp_;
+    corrected->lower = correction->lower;
+    corrected->upper = correction->upper;
+    corrected->cost = correction->cost;
+    corrected->sense = 1;
+    corrected->constant = 0;
+    detail::scale_limits_and_costs(*corrected);
   }
-  detail::scale(lp);
+  const detail::LpData& lp = corrected ? *corrected : *model.lp_;
+  FloatResult result;
   const int n = lp.columns, m = lp.rows;
   for (int j = 0; j < lp.variables(); ++j) {
     if (lp.lower[j] > lp.upper[j]) {

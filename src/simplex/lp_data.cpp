@@ -20,8 +20,6 @@ LpData lp_from_model(const model::Model& model) {
   LpData lp;
   lp.rows = model.row_count();
   lp.columns = model.column_count();
-  lp.sense = model.objective.sense == model::Sense::maximise ? -1 : 1;
-  lp.constant = numeric::to_double(model.objective.constant);
   const auto& a = model.matrix;
   for (int j = 0; j < lp.columns; ++j) {
     auto rows = a.column_rows(j);
@@ -29,22 +27,33 @@ LpData lp_from_model(const model::Model& model) {
     for (std::size_t k = 0; k < rows.size(); ++k) lp.by_column.push(rows[k], numeric::to_double(values[k]));
     lp.by_column.close();
   }
-  lp.cost.assign(lp.variables(), 0);
-  lp.lower.resize(lp.variables());
-  lp.upper.resize(lp.variables());
-  for (int j = 0; j < lp.columns; ++j) {
-    lp.cost[j] = lp.sense * numeric::to_double(model.objective.coefficients[j]);
-    lp.lower[j] = side(model.columns[j].lower, -infinity);
-    lp.upper[j] = side(model.columns[j].upper, infinity);
-  }
-  for (int i = 0; i < lp.rows; ++i) {
-    lp.lower[lp.columns + i] = side(model.rows[i].lower, -infinity);
-    lp.upper[lp.columns + i] = side(model.rows[i].upper, infinity);
-  }
   lp.column_scale.assign(lp.columns, 1);
   lp.row_scale.assign(lp.rows, 1);
+  lp.lower.resize(lp.variables());
+  lp.upper.resize(lp.variables());
+  for (int j = 0; j < lp.columns; ++j) take_column_limits(lp, j, model.columns[j]);
+  for (int i = 0; i < lp.rows; ++i) take_row_limits(lp, i, model.rows[i]);
+  take_objective(lp, model.objective);
   build_rows(lp);
   return lp;
+}
+
+void take_column_limits(LpData& lp, int column, const model::Column& from) {
+  lp.lower[column] = side(from.lower, -infinity) / lp.column_scale[column];
+  lp.upper[column] = side(from.upper, infinity) / lp.column_scale[column];
+}
+
+void take_row_limits(LpData& lp, int row, const model::Row& from) {
+  lp.lower[lp.columns + row] = side(from.lower, -infinity) * lp.row_scale[row];
+  lp.upper[lp.columns + row] = side(from.upper, infinity) * lp.row_scale[row];
+}
+
+void take_objective(LpData& lp, const model::Objective& from) {
+  lp.sense = from.sense == model::Sense::maximise ? -1 : 1;
+  lp.constant = numeric::to_double(from.constant);
+  lp.cost.assign(lp.variables(), 0);
+  for (int j = 0; j < lp.columns; ++j)
+    lp.cost[j] = lp.sense * numeric::to_double(from.coefficients[j]) * lp.column_scale[j];
 }
 
 void build_rows(LpData& lp) {
@@ -114,18 +123,27 @@ void scale(LpData& lp) {
 
   for (int j = 0; j < n; ++j) {
     for (int p = col.start[j]; p < col.start[j + 1]; ++p) col.value[p] *= r[col.index[p]] * c[j];
-    lp.cost[j] *= c[j];
-    lp.lower[j] /= c[j];
-    lp.upper[j] /= c[j];
     lp.column_scale[j] = c[j];
   }
-  for (int i = 0; i < m; ++i) {
-    lp.lower[n + i] *= r[i];
-    lp.upper[n + i] *= r[i];
-    lp.cost[n + i] /= r[i];  // nonzero only in a correction problem
-    lp.row_scale[i] = r[i];
-  }
+  lp.row_scale = r;
+  scale_limits_and_costs(lp);
   build_rows(lp);
+}
+
+void scale_limits_and_costs(LpData& lp) {
+  const int n = lp.columns;
+  for (int j = 0; j < n; ++j) {
+    const double c = lp.column_scale[j];
+    lp.cost[j] *= c;
+    lp.lower[j] /= c;
+    lp.upper[j] /= c;
+  }
+  for (int i = 0; i < lp.rows; ++i) {
+    const double r = lp.row_scale[i];
+    lp.lower[n + i] *= r;
+    lp.upper[n + i] *= r;
+    lp.cost[n + i] /= r;  // nonzero only in a correction problem
+  }
 }
 
 }  // namespace plumb::simplex::detail

@@ -31,11 +31,21 @@ struct LpData {
 // Doubles of the model's numbers; no scaling yet (column_scale and row_scale are 1).
 LpData lp_from_model(const model::Model& model);
 
+// A column's bounds, a row's sides (its logical's bounds) or the objective, taken again from the
+// model in the scale lp has: the same doubles lp_from_model and scale would give.
+void take_column_limits(LpData& lp, int column, const model::Column& from);
+void take_row_limits(LpData& lp, int row, const model::Row& from);
+void take_objective(LpData& lp, const model::Objective& from);
+
 // Scales rows and columns by powers of two: geometric-mean passes, which reduce the spread of
 // log |a_ij| as Curtis & Reid ("On the automatic scaling of matrices for Gaussian elimination",
 // J. Inst. Maths Applics 10, 1972) set out, then an equilibration pass bringing each column's
 // largest entry to about 1.  Fills by_row.
 void scale(LpData& lp);
+
+// Limits and costs of unscaled values into the scale of column_scale and row_scale (a column's
+// value x / C, a logical's R r).
+void scale_limits_and_costs(LpData& lp);
 
 // by_row from by_column.
 void build_rows(LpData& lp);

@@ -261,6 +261,40 @@ TEST(ExactSession, ResolvingUnchangedModelStartsAtTheLastBasis) {
   EXPECT_EQ(session.solve().solution.stats.float_iterations, 0);
 }
 
+// The session's float LP follows every kind of edit: each re-solve's float search ends at a basis
+// optimal for the edited model, so certification needs no correction round or exact pivot.  A
+// search on stale limits or costs would end at the old optimum, which each edit here moves.
+TEST(ExactSession, ItsFloatSearchSeesEachEdit) {
+  auto model = bakery();
+  Session session(model);
+  auto expect_found_by_the_search = [&](const char* what, const Rational& objective) {
+    SCOPED_TRACE(what);
+    CertifiedSolution result = session.solve();
+    ASSERT_TRUE(result.certified()) << result.verdict.failure;
+    EXPECT_EQ(result.solution.objective, objective);
+    EXPECT_FALSE(result.solution.stats.repaired);
+    EXPECT_EQ(result.solution.stats.correction_rounds, 0);
+  };
+  session.set_goal(Goal::feasibility);  // the float LP is made with zero costs
+  expect_found_by_the_search("feasibility first", 0);
+  session.set_goal(Goal::model_objective);
+  expect_found_by_the_search("as given", 130);
+  // Worked by hand: with rye at 10, oven and flour both bind (wheat/4 + spelt = 15, wheat +
+  // 3/2 spelt = 40): spelt 8, wheat 28, 30 + 56 + 32 = 118; spelt at 10 or at 0 gives 110.
+  session.set_column_upper(0, q(10));
+  expect_found_by_the_search("rye at most 10", 118);
+  session.set_goal(Goal::feasibility);
+  expect_found_by_the_search("feasibility", 0);
+  session.set_goal(Goal::model_objective);
+  expect_found_by_the_search("the objective again", 118);
+  session.restore_column(0);
+  expect_found_by_the_search("rye restored", 130);
+  session.set_row_upper(1, q(30));  // less flour
+  expect_found_by_the_search("less flour", fresh(session.current()).objective);
+  session.restore_row(1);
+  expect_found_by_the_search("flour restored", 130);
+}
+
 // A search start given from outside steers the float search of a fresh session (certification
 // runs as from a cold start): the first solve then needs no iteration.  The session's own last
 // basis comes first once it has one.

@@ -12,8 +12,9 @@ namespace plumb::exact {
 // question: any feasible point is optimal, with objective 0).
 enum class Goal { model_objective, feasibility };
 
-// Holds one model's float data, scaling, last basis and exact state across many solves, for the
-// filters and audits that ask hundreds of questions of nearly the same model.  Edits set a row
+// Holds one model's scaled float LP (edits are taken into it, not rebuilt), last basis and last
+// proof of infeasibility across many solves, for the filters and audits that ask hundreds of
+// questions of nearly the same model.  Edits set a row
 // side or a column bound to a value or to infinite (std::nullopt) and are undone by the restore
 // functions.  Each solve goes through the same float search, exact certification and independent
 // check as certified_solve (which is a session of one solve), warm from the last basis found.

@@ -6,10 +6,15 @@
 #include "plumb/simplex/basis.hpp"
 
 #include <functional>
+#include <memory>
 #include <string>
 #include <vector>
 
 namespace plumb::simplex {
+
+namespace detail {
+struct LpData;
+}
 
 enum class FloatStatus { optimal, infeasible, unbounded, stopped, failed };
 
@@ -60,7 +65,29 @@ struct FloatResult {
   bool zero_cost_search = false;  // the result is the zero-cost search's (FloatOptions::feasibility_search)
 };
 
+// A model's LP in doubles, scaled once (the matrix alone decides the scaling), for many searches
+// on the same matrix under other limits or another objective: a session's re-solves take the
+// edited rows, columns and objective again instead of converting and scaling the whole model.
+class FloatModel {
+ public:
+  explicit FloatModel(const model::Model& model);
+  ~FloatModel();
+  FloatModel(FloatModel&&) noexcept;
+  FloatModel& operator=(FloatModel&&) noexcept;
+
+  // Row i's sides, column j's bounds or the objective as they now stand in `model`, which has
+  // the matrix this was built from.
+  void take_row(const model::Model& model, int row);
+  void take_column(const model::Model& model, int column);
+  void take_objective(const model::Model& model);
+
+ private:
+  friend FloatResult solve_float(const FloatModel& model, const FloatOptions& options);
+  std::unique_ptr<detail::LpData> lp_;
+};
+
 // Works on the model's own form: columns with bounds, one logical per row bounded by its sides.
 FloatResult solve_float(const model::Model& model, const FloatOptions& options = {});
+FloatResult solve_float(const FloatModel& model, const FloatOptions& options = {});
 
 }  // namespace plumb::simplex
