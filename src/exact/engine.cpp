@@ -266,22 +266,31 @@ bool RationalEngine::certify_by_refinement(const simplex::Basis& basis,
   // others, zero or nearly so, are computed exactly.  The independent checker proves the result.
   const std::vector<Integer>& numerators = dual_solver.common_numerators();
   const Integer& denominator = dual_solver.common_denominator();
+  // A column meeting no nonzero y_i has d_j = c'_j exactly.  Under a feasibility goal (y = 0) that
+  // is every column, and the filter cannot decide them (an estimate 0 is never above its bound):
+  // explain's sub-solves had computed every reduced cost exactly.
+  enum : char { unusable, usable_estimate, zero_dual };
   std::vector<double> dual_estimate(static_cast<std::size_t>(m_));
-  std::vector<char> estimate_usable(static_cast<std::size_t>(m_));
+  std::vector<char> dual_kind(static_cast<std::size_t>(m_));
   for (int i = 0; i < m_; ++i) {
     dual_estimate[i] = quotient(numerators[i], Integer(1), denominator);
-    estimate_usable[i] = mpz_sgn(numerators[i].backend().data()) == 0 || std::isnormal(dual_estimate[i]);
+    dual_kind[i] = mpz_sgn(numerators[i].backend().data()) == 0 ? zero_dual
+                   : std::isnormal(dual_estimate[i])            ? usable_estimate
+                                                                : unusable;
   }
   std::vector<double> reduced_costs;  // of the nonbasic variables, for the correction problem
   if (correction) reduced_costs.assign(static_cast<std::size_t>(total()), 0.0);
   Integer sum;
   for_each_priced_column([&](int j, std::span<const int> rows, std::size_t entry) {
     if (!optimal && !correction) return;
+    char least = zero_dual;
+    for (int r : rows) least = std::min(least, dual_kind[r]);
     const ReducedCostEstimate estimate = estimate_reduced_cost(j, rows, entry, dual_estimate);
-    const bool usable = std::all_of(rows.begin(), rows.end(), [&](int r) { return estimate_usable[r] != 0; });
     double d = estimate.value;
     int sign;
-    if (usable && std::abs(d) > estimate.rounding) {
+    if (least == zero_dual) {
+      sign = cost_[j].sign();  // d is c'_j's double already
+    } else if (least == usable_estimate && std::abs(d) > estimate.rounding) {
       sign = d > 0 ? 1 : -1;
     } else {
       exact_reduced_cost(j, cost_[j], numerators, denominator, sum);
