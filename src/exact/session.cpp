@@ -223,12 +223,12 @@ CertifiedSolution Session::solve(const SolveOptions& options) {
     result.solution = *state.infeasible;
     result.solution.stats = {};
     result.solution.stats.proof = "earlier proof";
-    result.certificate = make_certificate(current(), result.solution);
+    result.certificate = make_certificate(current(), result.solution, options.certificate_extras);
     result.verdict = check::verify(current(), result.certificate);
     if (result.verdict.valid) {
       result.solution.stats.certify_seconds =
           std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
-      if (edited()) result.certificate.extra["changes"] = state.changes();
+      if (edited() && options.certificate_extras) result.certificate.extra["changes"] = state.changes();
       return result;
     }
     // Unaffected by the edits, the proof must hold: a rejection is a bug, reported like the
@@ -254,7 +254,8 @@ CertifiedSolution Session::solve(const SolveOptions& options) {
     state.rows_then.clear();
     state.columns_then.clear();
   }
-  if (result.certified() && edited()) result.certificate.extra["changes"] = state.changes();
+  if (result.certified() && edited() && options.certificate_extras)
+    result.certificate.extra["changes"] = state.changes();
   return result;
 }
 

@@ -223,7 +223,8 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
   return solution;
 }
 
-certificate::Certificate make_certificate(const model::Model& model, const Solution& solution) {
+certificate::Certificate make_certificate(const model::Model& model, const Solution& solution,
+                                          bool with_basis) {
   certificate::Certificate proof;
   proof.model = certificate::identify(model);
   auto column_name = [&model](std::size_t j) { return model.columns[j].name; };
@@ -251,7 +252,8 @@ certificate::Certificate make_certificate(const model::Model& model, const Solut
       throw std::logic_error("make_certificate: a stopped solve proves nothing");
   }
   // For warm starts and readers; the checker ignores it (docs/certificates.md, extra keys).
-  if (!solution.basis.empty()) proof.extra["basis"] = certificate::basis_json(model, solution.basis);
+  if (with_basis && !solution.basis.empty())
+    proof.extra["basis"] = certificate::basis_json(model, solution.basis);
   return proof;
 }
 
@@ -266,7 +268,7 @@ CertifiedSolution detail::verified_solve(const model::Model& model, const SolveO
       return result;
     }
     if (attempt == 0 && options.fault == Fault::result_corrupted) spoil(result.solution);
-    result.certificate = make_certificate(model, result.solution);
+    result.certificate = make_certificate(model, result.solution, options.certificate_extras);
     result.verdict = check::verify(model, result.certificate);
     if (result.verdict.valid) return result;
     bool pure = options.method == Method::exact && !options.warm_start;

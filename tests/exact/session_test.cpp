@@ -295,6 +295,30 @@ TEST(ExactSession, ItsFloatSearchSeesEachEdit) {
   expect_found_by_the_search("flour restored", 130);
 }
 
+// Sub-solves whose certificates are never written ask for no extra keys; the certificate still
+// passes the checker, which ignores them.  An earlier proof's answer leaves them out too.
+TEST(ExactSession, CertificatesWithoutExtraKeysOnRequest) {
+  auto model = bakery();
+  Session session(model);
+  SolveOptions bare;
+  bare.certificate_extras = false;
+  session.set_row_upper(1, q(30));
+  CertifiedSolution optimal = session.solve(bare);
+  ASSERT_TRUE(optimal.certified()) << optimal.verdict.failure;
+  EXPECT_TRUE(optimal.certificate.extra.empty());
+  session.set_row_lower(2, q(45));  // infeasible
+  ASSERT_EQ(session.solve(bare).solution.outcome, Outcome::infeasible);
+  session.set_row_upper(0, q(19));  // oven: no multiplier in that proof, so it stands
+  CertifiedSolution earlier = session.solve(bare);
+  ASSERT_TRUE(earlier.certified()) << earlier.verdict.failure;
+  EXPECT_EQ(earlier.solution.stats.proof, "earlier proof");
+  EXPECT_TRUE(earlier.certificate.extra.empty());
+  CertifiedSolution full = session.solve();
+  EXPECT_TRUE(full.certificate.extra.contains("changes"));
+  session.restore_all();
+  EXPECT_TRUE(session.solve().certificate.extra.contains("basis"));
+}
+
 // A search start given from outside steers the float search of a fresh session (certification
 // runs as from a cold start): the first solve then needs no iteration.  The session's own last
 // basis comes first once it has one.
