@@ -14,10 +14,10 @@ enum class Goal { model_objective, feasibility };
 
 // Holds one model's scaled float LP (edits are taken into it, not rebuilt), last basis and last
 // proof of infeasibility across many solves, for the filters and audits that ask hundreds of
-// questions of nearly the same model.  Edits set a row
-// side or a column bound to a value or to infinite (std::nullopt) and are undone by the restore
-// functions.  Each solve goes through the same float search, exact certification and independent
-// check as certified_solve (which is a session of one solve), warm from the last basis found.
+// questions of nearly the same model.  Edits set a row side or a column bound to a value or to
+// infinite (std::nullopt) and are undone by the restore functions.  Each solve goes through the
+// same float search, exact certification and independent check as certified_solve (which is a
+// session of one solve), warm from the last basis found.
 //
 // A certificate of an edited model (or under Goal::feasibility) names the model's file but carries
 // no SHA-256, so it can never pass as a certificate of the file itself; its extra key "changes"
