@@ -10,7 +10,6 @@
 #include <condition_variable>
 #include <exception>
 #include <mutex>
-#include <optional>
 #include <thread>
 
 namespace plumb::simplex {
@@ -92,40 +91,18 @@ FloatResult race_with_feasibility_search(detail::FloatEngine& main, const detail
   return result_of(main, lp, main_status);
 }
 
-}  // namespace
-
-FloatModel::FloatModel(const model::Model& model)
-    : lp_(std::make_unique<detail::LpData>(detail::lp_from_model(model))) {
-  detail::scale(*lp_);
-}
-FloatModel::~FloatModel() = default;
-FloatModel::FloatModel(FloatModel&&) noexcept = default;
-FloatModel& FloatModel::operator=(FloatModel&&) noexcept = default;
-
-void FloatModel::take_row(const model::Model& model, int row) {
-  detail::take_row_limits(*lp_, row, model.rows[row]);
-}
-void FloatModel::take_column(const model::Model& model, int column) {
-  detail::take_column_limits(*lp_, column, model.columns[column]);
-}
-void FloatModel::take_objective(const model::Model& model) { detail::take_objective(*lp_, model.objective); }
-
-FloatResult solve_float(const model::Model& model, const FloatOptions& options) {
-  return solve_float(FloatModel(model), options);
+// The correction problem's bounds and costs in place of the model's, in lp's scale.
+void take_correction(detail::LpData& lp, const CorrectionProblem& correction) {
+  lp.lower = correction.lower;
+  lp.upper = correction.upper;
+  lp.cost = correction.cost;
+  lp.sense = 1;
+  lp.constant = 0;
+  detail::scale_limits_and_costs(lp);
 }
 
-FloatResult solve_float(const FloatModel& model, const FloatOptions& options) {
-  std::optional<detail::LpData> corrected;
-  if (const CorrectionProblem* correction = options.correction) {
-    corrected = *model.lp_;
-    corrected->lower = correction->lower;
-    corrected->upper = correction->upper;
-    corrected->cost = correction->cost;
-    corrected->sense = 1;
-    corrected->constant = 0;
-    detail::scale_limits_and_costs(*corrected);
-  }
-  const detail::LpData& lp = corrected ? *corrected : *model.lp_;
+// The search on lp, scaled, with its bounds and costs as they are.
+FloatResult solve_lp(const detail::LpData& lp, const FloatOptions& options) {
   FloatResult result;
   const int n = lp.columns, m = lp.rows;
   for (int j = 0; j < lp.variables(); ++j) {
@@ -156,6 +133,37 @@ FloatResult solve_float(const FloatModel& model, const FloatOptions& options) {
   if (race)
     return race_with_feasibility_search(engine, lp, statuses.empty() ? nullptr : &statuses, options.budget);
   return result_of(engine, lp, engine.solve());
+}
+
+}  // namespace
+
+FloatModel::FloatModel(const model::Model& model)
+    : lp_(std::make_unique<detail::LpData>(detail::lp_from_model(model))) {
+  detail::scale(*lp_);
+}
+FloatModel::~FloatModel() = default;
+FloatModel::FloatModel(FloatModel&&) noexcept = default;
+FloatModel& FloatModel::operator=(FloatModel&&) noexcept = default;
+
+void FloatModel::take_row(const model::Model& model, int row) {
+  detail::take_row_limits(*lp_, row, model.rows[row]);
+}
+void FloatModel::take_column(const model::Model& model, int column) {
+  detail::take_column_limits(*lp_, column, model.columns[column]);
+}
+void FloatModel::take_objective(const model::Model& model) { detail::take_objective(*lp_, model.objective); }
+
+FloatResult solve_float(const model::Model& model, const FloatOptions& options) {
+  FloatModel built(model);
+  if (options.correction) take_correction(*built.lp_, *options.correction);  // this search's own LP
+  return solve_lp(*built.lp_, options);
+}
+
+FloatResult solve_float(const FloatModel& model, const FloatOptions& options) {
+  if (!options.correction) return solve_lp(*model.lp_, options);
+  detail::LpData corrected = *model.lp_;  // the kept LP stays as it is
+  take_correction(corrected, *options.correction);
+  return solve_lp(corrected, options);
 }
 
 }  // namespace plumb::simplex

@@ -81,6 +81,24 @@ TEST(FloatModel, TakesEditedLimitsAndObjectiveAsAFreshBuildWould) {
   expect_edits_taken(print_shop(), options);
 }
 
+// A correction problem (its own bounds and costs on the model's matrix) searched on the kept LP
+// as on a fresh build, and the kept LP unchanged by it.
+TEST(FloatModel, CorrectionProblemSearchesAsOnAFreshBuild) {
+  const Model model = print_shop();
+  FloatModel kept(model);
+  plumb::simplex::CorrectionProblem correction;
+  const int variables = model.column_count() + model.row_count();
+  correction.lower.assign(variables, -2.0);
+  correction.upper.assign(variables, 3.0);
+  correction.cost = {-1.0, 0.5, -4.0, 0.0, 0.25, 0.0};
+  FloatOptions options;
+  options.correction = &correction;
+  expect_same_search(solve_float(kept, options), solve_float(model, options));
+  FloatOptions plain;
+  plain.feasibility_search = false;
+  expect_same_search(solve_float(kept, plain), solve_float(model, plain));
+}
+
 TEST(NetlibFloatModel, AfiroEditsSearchAsAFreshBuild) {
   auto folder = plumb::test::shared_dir / "netlib";
   if (!plumb::test::shared_folder_present(folder)) GTEST_SKIP() << folder << " missing";

@@ -82,6 +82,7 @@ class FloatModel {
   void take_objective(const model::Model& model);
 
  private:
+  friend FloatResult solve_float(const model::Model& model, const FloatOptions& options);
   friend FloatResult solve_float(const FloatModel& model, const FloatOptions& options);
   std::unique_ptr<detail::LpData> lp_;
 };
