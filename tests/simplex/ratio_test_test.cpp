@@ -3,7 +3,9 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <limits>
+#include <random>
 
 namespace {
 
@@ -102,6 +104,72 @@ TEST(DualRatioTest, AfterPassingAGroupTheNextIsAHarrisGroupToo) {
   EXPECT_EQ(step.entering, 3);
   EXPECT_EQ(step.flips, std::vector<int>{1});
   EXPECT_DOUBLE_EQ(step.step, 2.00005);
+}
+
+// The rule read plainly (Koberstein 2005, algorithm 7): each group is every breakpoint whose
+// ratio is within the least relaxed ratio left; pass it while the slope stays positive.
+plumb::simplex::detail::DualStep plain_long_step(std::vector<DualCandidate> left, double slope,
+                                                 double dual_tolerance, double primal_tolerance) {
+  plumb::simplex::detail::DualStep step;
+  while (true) {
+    double bound = infinity;
+    for (const auto& c : left) bound = std::min(bound, (std::max(c.slack, 0.0) + dual_tolerance) / c.rate);
+    std::vector<DualCandidate> group, rest;
+    for (const auto& c : left) (c.slack / c.rate <= bound ? group : rest).push_back(c);
+    for (const auto& c : group) slope -= c.rate * c.range;
+    if (!(slope > 0 && !rest.empty())) {
+      if (slope > primal_tolerance) return {};
+      auto best =
+          std::max_element(group.begin(), group.end(), [](auto& a, auto& b) { return a.rate < b.rate; });
+      step.entering = best->variable;
+      step.step = best->slack / best->rate;
+      return step;
+    }
+    for (const auto& c : group) step.flips.push_back(c.variable);
+    left = rest;
+  }
+}
+
+// 2 000 breakpoints, 50 to 1 000 of them passed in Harris groups of several (tolerance
+// 0.01 against ratios a few thousandths apart): the ratio test orders the candidates a batch at a time, and
+// must take the step the plain reading takes, through every batch.  Invented data, fixed seed.
+TEST(DualRatioTest, PassesManyGroupsAsThePlainRuleDoes) {
+  std::mt19937 random(7);
+  std::uniform_real_distribution<double> slack(0.0, 10.0), rate(0.1, 2.0), range(0.001, 0.01);
+  std::vector<DualCandidate> candidates;
+  for (int j = 0; j < 2000; ++j) candidates.push_back({j, slack(random), rate(random), range(random)});
+  for (int j = 399; j < 2000; j += 400)
+    candidates[j].slack = 9.9, candidates[j].range = infinity;  // late stops
+  for (double slope = 1.0; slope < 8; slope += 0.2) {
+    auto expected = plain_long_step(candidates, slope, 0.01, tolerance);
+    auto reordered = candidates;
+    auto step = dual_ratio_test(reordered, slope, 0.01, tolerance);
+    ASSERT_GE(expected.entering, 0);
+    EXPECT_GT(expected.flips.size(), 50u) << "slope " << slope;
+    EXPECT_EQ(step.entering, expected.entering) << "slope " << slope;
+    EXPECT_DOUBLE_EQ(step.step, expected.step);
+    std::sort(step.flips.begin(), step.flips.end());
+    std::sort(expected.flips.begin(), expected.flips.end());
+    EXPECT_EQ(step.flips, expected.flips) << "slope " << slope;
+  }
+}
+
+// The group after 64 single-breakpoint groups (the first batch the ratio test orders) is bounded
+// by a breakpoint not yet ordered: B's relaxed ratio 64.5 + 0.01 / 10 caps the group at {A, B},
+// and B, the larger rate, enters; C (ratio 64.9, rate 50) lies beyond that bound, though within
+// A's own relaxed ratio 64 + 0.01 / 0.01.  Invented numbers.
+TEST(DualRatioTest, AGroupBoundLooksBeyondTheBreakpointsOrderedSoFar) {
+  std::vector<DualCandidate> candidates = {{0, 0.5, 1.0, 1.0}};
+  for (int k = 1; k <= 63; ++k) candidates.push_back({k, double(k), 1.0, 1.0});
+  candidates.push_back({100, 0.64, 0.01, 1.0});    // A: ratio 64
+  candidates.push_back({101, 645.0, 10.0, 1.0});   // B: ratio 64.5
+  candidates.push_back({102, 3245.0, 50.0, 1.0});  // C: ratio 64.9
+  for (int k = 66; k <= 80; ++k) candidates.push_back({k, double(k), 1.0, 1.0});
+  std::reverse(candidates.begin(), candidates.end());
+  auto step = dual_ratio_test(candidates, 69.0, 0.01, tolerance);
+  EXPECT_EQ(step.entering, 101);
+  EXPECT_EQ(step.flips.size(), 64u);
+  EXPECT_DOUBLE_EQ(step.step, 64.5);
 }
 
 // A free nonbasic variable (infinite range) can never be passed: it enters at its breakpoint
