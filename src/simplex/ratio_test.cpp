@@ -34,6 +34,9 @@ DualStep dual_ratio_test(std::vector<DualCandidate>& candidates, double slope, d
     for (auto it = first; it != last; ++it) slope_after -= it->rate * it->range;
     return slope_after;
   };
+  // A ratio that is not a number (rounding run wild upstream) has no place in the order: it would
+  // leave the sort's order undefined and the walk below stuck at an empty group.
+  std::erase_if(candidates, [](const DualCandidate& c) { return std::isnan(ratio(c)); });
   // The first group in two passes over the candidates: the step usually ends in it.
   double bound = std::numeric_limits<double>::infinity();
   for (const auto& c : candidates) bound = std::min(bound, relaxed_ratio(c, dual_tolerance));

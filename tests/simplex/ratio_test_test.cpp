@@ -172,6 +172,17 @@ TEST(DualRatioTest, AGroupBoundLooksBeyondTheBreakpointsOrderedSoFar) {
   EXPECT_DOUBLE_EQ(step.step, 64.5);
 }
 
+// A breakpoint whose ratio is not a number cannot be ordered; it is left out rather than let the
+// walk through the groups stall on it (it had looped for ever).  Common practice: a NaN must
+// not hang a solver.
+TEST(DualRatioTest, ARatioThatIsNotANumberIsLeftOut) {
+  const double nan = std::numeric_limits<double>::quiet_NaN();
+  std::vector<DualCandidate> candidates = {{1, nan, 1.0, 1.0}, {2, 1.0, 1.0, 1.0}, {3, 2.0, 1.0, infinity}};
+  auto step = dual_ratio_test(candidates, 5.0, tolerance, tolerance);
+  EXPECT_EQ(step.entering, 3);
+  EXPECT_EQ(step.flips, std::vector<int>{2});
+}
+
 // A free nonbasic variable (infinite range) can never be passed: it enters at its breakpoint
 // even when the slope would allow more.
 TEST(DualRatioTest, AFreeVariableIsNeverPassed) {
