@@ -28,7 +28,8 @@ struct DualStep {
 // Harris groups while the slope (starting at the primal infeasibility of the leaving variable)
 // stays positive; in the last group the candidate with the largest rate enters.  The dual is
 // unbounded only when the slope left after every breakpoint exceeds primal_tolerance (the
-// primal infeasibility that would remain).  Reorders `candidates`.
+// primal infeasibility that would remain).  Reorders `candidates`, dropping any whose ratio is
+// not a number.
 DualStep dual_ratio_test(std::vector<DualCandidate>& candidates, double slope, double dual_tolerance,
                          double primal_tolerance);
 
