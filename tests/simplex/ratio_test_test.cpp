@@ -1,4 +1,5 @@
-// Ratio tests on small crafted cases: bound flipping, Harris groups, dual unboundedness.
+// Ratio tests on crafted cases and against a plain reading of the rule: bound flipping, Harris
+// groups, dual unboundedness.
 #include "simplex/ratio_test.hpp"
 
 #include <gtest/gtest.h>
@@ -130,9 +131,10 @@ plumb::simplex::detail::DualStep plain_long_step(std::vector<DualCandidate> left
   }
 }
 
-// 2 000 breakpoints, 50 to 1 000 of them passed in Harris groups of several (tolerance
-// 0.01 against ratios a few thousandths apart): the ratio test orders the candidates a batch at a time, and
-// must take the step the plain reading takes, through every batch.  Invented data, fixed seed.
+// 2 000 breakpoints, 50 to 1 000 of them passed in Harris groups of several (tolerance 0.01
+// against ratios a few thousandths apart): the ratio test orders the candidates a batch at a
+// time, and must take the step the plain reading takes, through every batch.  Invented data,
+// fixed seed.
 TEST(DualRatioTest, PassesManyGroupsAsThePlainRuleDoes) {
   std::mt19937 random(7);
   std::uniform_real_distribution<double> slack(0.0, 10.0), rate(0.1, 2.0), range(0.001, 0.01);
