@@ -50,7 +50,7 @@ DualStep dual_ratio_test(std::vector<DualCandidate>& candidates, double slope, d
   // recomputing the bound per group was quadratic in the number of groups (thousands on models
   // with many boxed columns).  The step usually ends a few groups on, so the order is built a
   // batch at a time (the batch's members by selection, then sorted), not over every candidate:
-  // sorting all of them had been a fifth of fit2d's search (10 000 columns in each pivot row).
+  // sorting all of them had been two fifths of fit2d's search (10 000 columns in each pivot row).
   for (auto it = candidates.begin(); it != group_end; ++it) result.flips.push_back(it->variable);
   slope = slope_after;
   const auto end = candidates.end();
