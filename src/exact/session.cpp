@@ -41,6 +41,11 @@ struct Session::State {
   bool stale_objective = false;
   simplex::Basis basis;  // where the last solve ended; empty before the first
   bool basis_from_zero_costs = false;  // found by the zero-cost search (detail::SearchStart)
+  // The last basis a solve ended at that the search on the model's costs found: when solves the
+  // zero-cost search answered came after it, the next search on the costs starts there, not
+  // cold.  (Where that search stood when the other one's proof stopped it is not kept: it
+  // depends on timing, and no re-solve's path may.)
+  simplex::Basis cost_search_basis;
   // The last proof of infeasibility a solve found, and the limits (lower, upper) its rows and
   // columns had then, for those edited since: the proof holds still while every row or column
   // whose limits differ from then carries no multiplier (earlier_proof_unaffected).
@@ -240,6 +245,7 @@ CertifiedSolution Session::solve(const SolveOptions& options) {
   detail::SearchStart start;
   start.basis = state.basis.empty() ? options.search_start : &state.basis;
   start.from_zero_costs = !state.basis.empty() && state.basis_from_zero_costs;
+  if (!state.cost_search_basis.empty()) start.cost_search_basis = &state.cost_search_basis;
   start.float_model = [&state]() -> const simplex::FloatModel& { return state.float_model_now(); };
   CertifiedSolution result = detail::verified_solve(current(), options, start);
   result.rejections.insert(result.rejections.begin(), rejections.begin(), rejections.end());
@@ -247,6 +253,7 @@ CertifiedSolution Session::solve(const SolveOptions& options) {
   if (!result.solution.basis.empty()) {
     state.basis = result.solution.basis;
     state.basis_from_zero_costs = result.solution.stats.zero_cost_search;
+    if (!state.basis_from_zero_costs) state.cost_search_basis = state.basis;
   }
   if (result.certified() && result.solution.outcome == Outcome::infeasible) {
     state.infeasible = result.solution;

@@ -195,6 +195,7 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
   search.budget = options.budget;
   search.warm_start = start.basis;
   search.warm_start_from_zero_costs = start.from_zero_costs;
+  search.cost_search_start = start.cost_search_basis;
   search.progress = detail::float_progress(options, "float ");
   simplex::FloatResult found = start.float_model ? simplex::solve_float(start.float_model(), search)
                                                  : simplex::solve_float(model, search);

@@ -120,14 +120,20 @@ FloatResult solve_lp(const detail::LpData& lp, const FloatOptions& options) {
   // one core the race would take the time of both.
   bool race = options.feasibility_search && !options.correction && std::thread::hardware_concurrency() >= 2 &&
               std::any_of(lp.cost.begin(), lp.cost.end(), [](double c) { return c != 0; });
-  std::vector<VarStatus> statuses;
-  if (options.warm_start && static_cast<int>(options.warm_start->columns.size()) == n &&
-      static_cast<int>(options.warm_start->rows.size()) == m) {
-    statuses = options.warm_start->columns;
-    statuses.insert(statuses.end(), options.warm_start->rows.begin(), options.warm_start->rows.end());
-  }
-  if (!statuses.empty() && !(race && options.warm_start_from_zero_costs))
-    engine.start_from(statuses);
+  auto statuses_of = [n, m](const Basis* basis) {
+    std::vector<VarStatus> statuses;
+    if (basis && static_cast<int>(basis->columns.size()) == n && static_cast<int>(basis->rows.size()) == m) {
+      statuses = basis->columns;
+      statuses.insert(statuses.end(), basis->rows.begin(), basis->rows.end());
+    }
+    return statuses;
+  };
+  std::vector<VarStatus> statuses = statuses_of(options.warm_start);
+  const bool zero_cost_start = race && options.warm_start_from_zero_costs;
+  std::vector<VarStatus> cost_search_statuses =
+      zero_cost_start ? statuses_of(options.cost_search_start) : statuses;
+  if (!cost_search_statuses.empty())
+    engine.start_from(cost_search_statuses);
   else if (options.crash)
     engine.crash_equality_rows();
   if (race)

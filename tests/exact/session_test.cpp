@@ -408,5 +408,34 @@ TEST(NetlibSession, AZeroCostBasisStartsOnlyTheZeroCostSearch) {
   EXPECT_EQ(relaxed.solution.stats.float_iterations, cold.solution.stats.float_iterations);
 }
 
+// Invented, worked by hand: min 3a + 2b with a + b >= 4, a + 3b >= 6 and a + b <= 10 has its
+// optimum 8 at (0, 4).  With the cap lowered to 1 no point exists, which the zero-cost search
+// proves; with the cap restored, the search on the costs starts where it last ended, at the
+// optimum, and needs no iteration (from the logical basis it needs some).
+TEST(ExactSession, TheSearchOnTheCostsResumesWhereItLastEnded) {
+  if (std::thread::hardware_concurrency() < 2) GTEST_SKIP() << "one core: the zero-cost search does not run";
+  auto model = ModelBuilder("two-covers-and-a-cap")
+                   .column("a", 3)
+                   .column("b", 2)
+                   .row("cover", Terms{{"a", 1}, {"b", 1}}, q(4), {})
+                   .row("weighted", Terms{{"a", 1}, {"b", 3}}, q(6), {})
+                   .row("cap", Terms{{"a", 1}, {"b", 1}}, {}, q(10))
+                   .build();
+  Session session(model);
+  CertifiedSolution first = session.solve();
+  ASSERT_EQ(first.solution.outcome, Outcome::optimal);
+  EXPECT_EQ(first.solution.objective, q(8));
+  EXPECT_GT(first.solution.stats.float_iterations, 0);
+  session.set_row_upper(2, q(1));
+  CertifiedSolution capped = session.solve();
+  ASSERT_EQ(capped.solution.outcome, Outcome::infeasible);
+  ASSERT_TRUE(capped.solution.stats.zero_cost_search);
+  session.restore_row(2);
+  CertifiedSolution restored = session.solve();
+  ASSERT_EQ(restored.solution.outcome, Outcome::optimal);
+  EXPECT_EQ(restored.solution.objective, q(8));
+  EXPECT_EQ(restored.solution.stats.float_iterations, 0);
+}
+
 }  // namespace
 }  // namespace plumb::exact

@@ -97,6 +97,27 @@ TEST(ZeroCostSearch, ABasisItFoundIsOnlyItsOwnStart) {
   EXPECT_EQ(again.basis.columns, cold.basis.columns);
 }
 
+// With the zero-cost search's basis as the warm start, the search on the costs starts where it
+// last ended when told (simplex::FloatOptions::cost_search_start): from the optimum, no iteration.
+TEST(ZeroCostSearch, TheSearchOnTheCostsCanStartWhereItLastEnded) {
+  if (one_core()) GTEST_SKIP() << "one core: the zero-cost search does not run";
+  auto model = two_covering_rows();
+  auto cold = solve_float(model);
+  ASSERT_EQ(cold.status, FloatStatus::optimal) << cold.note;
+  ASSERT_GT(cold.iterations, 0);
+  using plumb::simplex::VarStatus;
+  plumb::simplex::Basis logical{{VarStatus::at_lower, VarStatus::at_lower},
+                                {VarStatus::basic, VarStatus::basic}};
+  FloatOptions warm;
+  warm.warm_start = &logical;
+  warm.warm_start_from_zero_costs = true;
+  warm.cost_search_start = &cold.basis;
+  auto again = solve_float(model, warm);
+  ASSERT_EQ(again.status, FloatStatus::optimal) << again.note;
+  EXPECT_EQ(again.iterations, 0);
+  EXPECT_NEAR(again.objective, 8.0, 1e-9);
+}
+
 TEST(ZeroCostSearch, ASearchStopsWhenTheOtherThreadAsks) {
   auto model = infeasible_and_dual_infeasible();
   auto lp = plumb::simplex::detail::lp_from_model(model);

@@ -42,6 +42,9 @@ struct FloatOptions {
   // (gosh, one row freed: 2 827 dual infeasibilities, 38 337 iterations against 16 361 cold), so
   // when both searches run only the zero-cost one starts there, the other from the logical basis.
   bool warm_start_from_zero_costs = false;
+  // Then the search on the model's costs starts here instead, when given: where that search last
+  // ended on a like model (a session keeps it apart from the zero-cost search's basis).
+  const Basis* cost_search_start = nullptr;
   const CorrectionProblem* correction = nullptr;  // solve this instead of the model's bounds and costs
   std::function<void(const FloatProgress&)> progress;
   // Also search on zero costs, on a second core when there is one, and take its proof of
