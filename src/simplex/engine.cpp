@@ -675,6 +675,15 @@ FloatEngine::LoopEnd FloatEngine::primal_loop() {
     PrimalStep step = primal_ratio_test(primal_candidates_, primal_tolerance);
     const double range = boxed(q) ? upper_[q] - lower_[q] : inf_;
     if (step.leaving < 0 && range == inf_) {
+      if (options_.correction) {
+        // A correction problem is bounded whenever the model's LP is (its costs are reduced
+        // costs), so this ray is rounding on costs scaled up to 2^40: the cost is shifted and
+        // the search goes on, its basis to be certified exactly in any case.
+        cost_[q] -= d_[q];
+        d_[q] = 0;
+        costs_modified_ = true;
+        continue;
+      }
       ray_variable_ = q;  // the entering variable spans the ray
       return LoopEnd::unbounded;
     }
@@ -789,6 +798,10 @@ FloatStatus FloatEngine::solve() {
     bool perturbed_once = false;
     for (int round = 0; round < 20; ++round) {
       int primal_bad = count_primal_infeasible();
+      // A correction problem only guides the next exact certification, which judges its basis on
+      // the true costs: optimal on perturbed or shifted ones is enough.
+      if (primal_bad == 0 && costs_modified_ && options_.correction && count_dual_infeasible(true) == 0)
+        return FloatStatus::optimal;
       // Primal feasible on perturbed or shifted costs: back to the model's costs, where the
       // primal loop removes what dual infeasibility is left without losing primal feasibility
       // (a dual phase 1 from here had lost it again and again: greenbea's least-infeasibility LP

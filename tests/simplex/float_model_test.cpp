@@ -7,6 +7,8 @@
 
 #include <gtest/gtest.h>
 
+#include <limits>
+
 namespace {
 
 using plumb::model::Model;
@@ -106,6 +108,35 @@ TEST(NetlibFloatModel, AfiroEditsSearchAsAFreshBuild) {
   FloatOptions options;
   options.feasibility_search = false;
   expect_edits_taken(model, options);
+}
+
+// A correction problem is bounded whenever the model's LP is (its costs are reduced costs), so a
+// ray the float search meets there is rounding on costs scaled up to 2^40: the search shifts that
+// cost and ends at a basis for the exact side to judge, never in a ray.  Here a ray is real (the
+// correction's costs are made up: -1 on posters, every entry of whose column is positive, with
+// every row free above), and the search still ends optimal, on shifted costs.
+TEST(FloatModel, ACorrectionProblemNeverEndsInARay) {
+  const Model model = print_shop();
+  plumb::simplex::CorrectionProblem correction;
+  const int variables = model.column_count() + model.row_count();
+  correction.lower.assign(variables, 0.0);
+  correction.upper.assign(variables, std::numeric_limits<double>::infinity());
+  correction.cost.assign(variables, 0.0);
+  correction.cost[0] = -1.0;
+  FloatOptions options;
+  options.correction = &correction;
+  FloatResult result = solve_float(model, options);
+  EXPECT_EQ(result.status, plumb::simplex::FloatStatus::optimal) << result.note;
+  // The same LP as a model of its own: unbounded.
+  Model same = model;
+  for (auto& column : same.columns) column.lower = Rational(0), column.upper.reset();
+  for (auto& row : same.rows) row.lower = Rational(0), row.upper.reset();
+  same.objective.sense = plumb::model::Sense::minimise;
+  same.objective.coefficients.assign(model.column_count(), Rational(0));
+  same.objective.coefficients[0] = -1;
+  FloatOptions plain;
+  plain.feasibility_search = false;
+  EXPECT_EQ(solve_float(same, plain).status, plumb::simplex::FloatStatus::unbounded);
 }
 
 }  // namespace
