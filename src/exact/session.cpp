@@ -43,8 +43,8 @@ struct Session::State {
   bool basis_from_zero_costs = false;  // found by the zero-cost search (detail::SearchStart)
   // The last basis a solve ended at that the search on the model's costs found: when solves the
   // zero-cost search answered came after it, the next search on the costs starts there, not
-  // cold.  (Where that search stood when the other one's proof stopped it is not kept: it
-  // depends on timing, and no re-solve's path may.)
+  // cold.  (Where the search on the costs stood when the zero-cost search's proof was taken is
+  // not kept: whether it had ended by then depends on timing, and no re-solve's path may.)
   simplex::Basis cost_search_basis;
   // The last proof of infeasibility a solve found, and the limits (lower, upper) its rows and
   // columns had then, for those edited since: the proof holds still while every row or column

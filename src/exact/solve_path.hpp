@@ -10,8 +10,8 @@ namespace plumb::exact::detail {
 
 // Where the float search starts: a basis when given, whether the zero-cost search found it
 // (simplex::FloatOptions::warm_start_from_zero_costs) and then where the search on the model's
-// costs last ended; and, when a session keeps one, the float
-// LP of the model solved, asked for only when the float search runs.
+// costs last ended; and, when a session keeps one, the float LP of the model solved, asked for
+// only when the float search runs.
 struct SearchStart {
   const simplex::Basis* basis = nullptr;
   bool from_zero_costs = false;
