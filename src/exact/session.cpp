@@ -40,6 +40,10 @@ struct Session::State {
   std::set<int> stale_rows, stale_columns;
   bool stale_objective = false;
   simplex::Basis basis;  // where the last solve ended; empty before the first
+  // The pricing weights the last float search ended with, and those of the search on the costs
+  // (simplex::DualWeights): a guide for the next start, whose basis is where the exact engine
+  // ended, the float search's own basis unless certification had to move on from it.
+  simplex::DualWeights weights, cost_search_weights;
   bool basis_from_zero_costs = false;  // found by the zero-cost search (detail::SearchStart)
   // The last basis a solve ended at that the search on the model's costs found: when solves the
   // zero-cost search answered came after it, the next search on the costs starts there, not
@@ -244,16 +248,26 @@ CertifiedSolution Session::solve(const SolveOptions& options) {
 
   detail::SearchStart start;
   start.basis = state.basis.empty() ? options.search_start : &state.basis;
+  if (!state.basis.empty()) start.weights = &state.weights;
   start.from_zero_costs = !state.basis.empty() && state.basis_from_zero_costs;
-  if (!state.cost_search_basis.empty()) start.cost_search_basis = &state.cost_search_basis;
+  if (!state.cost_search_basis.empty()) {
+    start.cost_search_basis = &state.cost_search_basis;
+    start.cost_search_weights = &state.cost_search_weights;
+  }
   start.float_model = [&state]() -> const simplex::FloatModel& { return state.float_model_now(); };
+  simplex::DualWeights weights_found;
+  start.weights_found = &weights_found;
   CertifiedSolution result = detail::verified_solve(current(), options, start);
   result.rejections.insert(result.rejections.begin(), rejections.begin(), rejections.end());
   if (result.solution.outcome == Outcome::stopped) return result;
   if (!result.solution.basis.empty()) {
     state.basis = result.solution.basis;
+    state.weights = std::move(weights_found);
     state.basis_from_zero_costs = result.solution.stats.zero_cost_search;
-    if (!state.basis_from_zero_costs) state.cost_search_basis = state.basis;
+    if (!state.basis_from_zero_costs) {
+      state.cost_search_basis = state.basis;
+      state.cost_search_weights = state.weights;
+    }
   }
   if (result.certified() && result.solution.outcome == Outcome::infeasible) {
     state.infeasible = result.solution;

@@ -194,8 +194,10 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
   simplex::FloatOptions search;
   search.budget = options.budget;
   search.warm_start = start.basis;
+  search.warm_weights = start.weights;
   search.warm_start_from_zero_costs = start.from_zero_costs;
   search.cost_search_start = start.cost_search_basis;
+  search.cost_search_weights = start.cost_search_weights;
   search.progress = detail::float_progress(options, "float ");
   simplex::FloatResult found = start.float_model ? simplex::solve_float(start.float_model(), search)
                                                  : simplex::solve_float(model, search);
@@ -218,6 +220,7 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
   } else {
     solution = run_exact(model, options, &found.basis, &found);
   }
+  if (start.weights_found) *start.weights_found = std::move(found.dual_weights);
   solution.stats.float_seconds = float_seconds;
   solution.stats.float_iterations = found.iterations;
   solution.stats.zero_cost_search = found.zero_cost_search;

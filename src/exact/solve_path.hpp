@@ -8,15 +8,19 @@
 
 namespace plumb::exact::detail {
 
-// Where the float search starts: a basis when given, whether the zero-cost search found it
-// (simplex::FloatOptions::warm_start_from_zero_costs) and then where the search on the model's
-// costs last ended; and, when a session keeps one, the float LP of the model solved, asked for
-// only when the float search runs.
+// Where the float search starts: a basis when given, with its pricing weights, whether the
+// zero-cost search found it (simplex::FloatOptions::warm_start_from_zero_costs) and then where the
+// search on the model's costs last ended; and, when a session keeps one, the float LP of the
+// model solved, asked for only when the float search runs.  The search's own final weights go to
+// `weights_found` when given (left as they were when no float search ran).
 struct SearchStart {
   const simplex::Basis* basis = nullptr;
+  const simplex::DualWeights* weights = nullptr;
   bool from_zero_costs = false;
   const simplex::Basis* cost_search_basis = nullptr;  // simplex::FloatOptions::cost_search_start
+  const simplex::DualWeights* cost_search_weights = nullptr;
   std::function<const simplex::FloatModel&()> float_model;
+  simplex::DualWeights* weights_found = nullptr;
 };
 
 // solve(), with the float search starting from `start` (its infeasibility and unboundedness hints

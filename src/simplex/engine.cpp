@@ -138,7 +138,7 @@ void FloatEngine::for_column(int j, F&& f) const {
   }
 }
 
-void FloatEngine::start_from(const std::vector<VarStatus>& statuses) {
+void FloatEngine::start_from(const std::vector<VarStatus>& statuses, const DualWeights* weights) {
   const int total = m_ + n_;
   int basic = 0;
   for (int j = 0; j < total; ++j) basic += statuses[j] == VarStatus::basic;
@@ -146,6 +146,7 @@ void FloatEngine::start_from(const std::vector<VarStatus>& statuses) {
   if (basic != m_) {
     for (int j = 0; j < n_; ++j) use[j] = default_status(j);
     for (int i = 0; i < m_; ++i) use[n_ + i] = VarStatus::basic;
+    weights = nullptr;
   }
   int k = 0;
   for (int j = 0; j < total; ++j) {
@@ -158,6 +159,15 @@ void FloatEngine::start_from(const std::vector<VarStatus>& statuses) {
     }
   }
   std::fill(weight_.begin(), weight_.end(), 1.0);
+  if (!weights || static_cast<int>(weights->size()) != total) return;
+  for (int k = 0; k < m_; ++k)
+    if ((*weights)[head_[k]] > 0) weight_[k] = (*weights)[head_[k]];
+}
+
+DualWeights FloatEngine::dual_weights() const {
+  DualWeights weights(m_ + n_, 0.0);
+  for (int k = 0; k < m_; ++k) weights[head_[k]] = weight_[k];
+  return weights;
 }
 
 // The crash (our own, in the spirit of the triangular crash bases of R. E. Bixby, "Implementing

@@ -29,8 +29,8 @@ class FloatEngine {
   FloatEngine(const LpData& lp, const FloatOptions& options, SearchGoal goal = SearchGoal::model_costs);
 
   // Starts from the given statuses (one per variable, exactly `rows` basic), else from the
-  // all-logical basis.
-  void start_from(const std::vector<VarStatus>& statuses);
+  // all-logical basis; prices with `weights` (per variable) where they are given and positive.
+  void start_from(const std::vector<VarStatus>& statuses, const DualWeights* weights = nullptr);
   // From the all-logical basis: puts structural columns into the basis in place of the logicals
   // of equality rows that basis leaves infeasible, keeping the basis triangular and dual
   // feasible (docs/solving.md, "the crash").  Returns how many went in.
@@ -42,6 +42,7 @@ class FloatEngine {
   const std::vector<VarStatus>& statuses() const { return status_; }
   // The dual steepest-edge weight of basic variable j's row of B^-1.
   double dual_weight(int j) const { return weight_[position_[j]]; }
+  DualWeights dual_weights() const;  // per variable, 0 for nonbasic ones
   long iterations() const { return iterations_; }
   double objective() const;  // internal (minimising, scaled) objective of the current point
   const std::string& note() const { return note_; }

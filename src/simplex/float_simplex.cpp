@@ -22,6 +22,7 @@ FloatResult result_of(const detail::FloatEngine& engine, const detail::LpData& l
   const auto& statuses = engine.statuses();
   result.basis.columns.assign(statuses.begin(), statuses.begin() + lp.columns);
   result.basis.rows.assign(statuses.begin() + lp.columns, statuses.end());
+  result.dual_weights = engine.dual_weights();
   result.iterations = engine.iterations();
   result.objective = lp.model_objective(engine.objective());
   result.ray_variable = engine.ray_variable();
@@ -40,10 +41,11 @@ FloatResult result_of(const detail::FloatEngine& engine, const detail::LpData& l
 //    result when infeasible, so that which of the two is used never depends on timing;
 //  - the main search ends any other way: the zero-cost search is stopped, the main result used.
 FloatResult race_with_feasibility_search(detail::FloatEngine& main, const detail::LpData& lp,
-                                         const std::vector<VarStatus>* start, run::Budget* budget) {
+                                         const std::vector<VarStatus>* start, const DualWeights* weights,
+                                         run::Budget* budget) {
   FloatOptions silent;  // no budget (it is not thread-safe) and no progress: the main search has them
   detail::FloatEngine scout(lp, silent, detail::SearchGoal::feasibility);
-  if (start) scout.start_from(*start);
+  if (start) scout.start_from(*start, weights);
   std::atomic<bool> stop_main{false}, stop_scout{false};
   bool scout_done = false;  // guarded by `done_mutex`, announced on `done_signal`
   std::mutex done_mutex;
@@ -132,12 +134,15 @@ FloatResult solve_lp(const detail::LpData& lp, const FloatOptions& options) {
   const bool zero_cost_start = race && options.warm_start_from_zero_costs;
   std::vector<VarStatus> cost_search_statuses =
       zero_cost_start ? statuses_of(options.cost_search_start) : statuses;
+  const DualWeights* cost_search_weights =
+      zero_cost_start ? options.cost_search_weights : options.warm_weights;
   if (!cost_search_statuses.empty())
-    engine.start_from(cost_search_statuses);
+    engine.start_from(cost_search_statuses, cost_search_weights);
   else if (options.crash)
     engine.crash_equality_rows();
   if (race)
-    return race_with_feasibility_search(engine, lp, statuses.empty() ? nullptr : &statuses, options.budget);
+    return race_with_feasibility_search(engine, lp, statuses.empty() ? nullptr : &statuses,
+                                        options.warm_weights, options.budget);
   return result_of(engine, lp, engine.solve());
 }
 

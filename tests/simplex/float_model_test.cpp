@@ -139,4 +139,43 @@ TEST(FloatModel, ACorrectionProblemNeverEndsInARay) {
   EXPECT_EQ(solve_float(same, plain).status, plumb::simplex::FloatStatus::unbounded);
 }
 
+// A search hands back its pricing weights with its basis (simplex::DualWeights), and a warm start
+// from that basis prices with them: re-solved from its own optimum the print shop needs no
+// iteration and ends with the weights it was given, where a start without them has 1s.
+TEST(FloatModel, AWarmStartPricesWithTheWeightsItCameWith) {
+  const Model model = print_shop();
+  FloatModel kept(model);
+  FloatOptions options;
+  options.feasibility_search = false;
+  const FloatResult first = solve_float(kept, options);
+  ASSERT_EQ(first.status, plumb::simplex::FloatStatus::optimal) << first.note;
+  const std::size_t variables = model.column_count() + model.row_count();
+  ASSERT_EQ(first.dual_weights.size(), variables);
+  auto basic = [&](std::size_t j) {
+    const auto& statuses = j < first.basis.columns.size() ? first.basis.columns : first.basis.rows;
+    return statuses[j < first.basis.columns.size() ? j : j - first.basis.columns.size()] ==
+           plumb::simplex::VarStatus::basic;
+  };
+  bool any_other_than_one = false;
+  for (std::size_t j = 0; j < variables; ++j) {
+    EXPECT_EQ(first.dual_weights[j] > 0, basic(j)) << "variable " << j;
+    any_other_than_one |= basic(j) && first.dual_weights[j] != 1;
+  }
+  ASSERT_TRUE(any_other_than_one) << "the test needs a basis whose rows of B^-1 are not unit vectors";
+
+  options.warm_start = &first.basis;
+  options.warm_weights = &first.dual_weights;
+  const FloatResult again = solve_float(kept, options);
+  EXPECT_EQ(again.iterations, 0);
+  EXPECT_EQ(again.dual_weights, first.dual_weights);
+
+  options.warm_weights = nullptr;
+  const FloatResult unweighted = solve_float(kept, options);
+  EXPECT_EQ(unweighted.iterations, 0);
+  for (std::size_t j = 0; j < variables; ++j) {
+    if (!basic(j)) continue;
+    EXPECT_EQ(unweighted.dual_weights[j], 1) << "variable " << j;
+  }
+}
+
 }  // namespace
