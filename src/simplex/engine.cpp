@@ -160,8 +160,8 @@ void FloatEngine::start_from(const std::vector<VarStatus>& statuses, const DualW
   }
   std::fill(weight_.begin(), weight_.end(), 1.0);
   if (!weights || static_cast<int>(weights->size()) != total) return;
-  for (int k = 0; k < m_; ++k)
-    if ((*weights)[head_[k]] > 0) weight_[k] = (*weights)[head_[k]];
+  for (int position = 0; position < m_; ++position)
+    if ((*weights)[head_[position]] > 0) weight_[position] = (*weights)[head_[position]];
 }
 
 DualWeights FloatEngine::dual_weights() const {
