@@ -151,11 +151,9 @@ TEST(FloatModel, AWarmStartPricesWithTheWeightsItCameWith) {
   ASSERT_EQ(first.status, plumb::simplex::FloatStatus::optimal) << first.note;
   const std::size_t variables = model.column_count() + model.row_count();
   ASSERT_EQ(first.dual_weights.size(), variables);
-  auto basic = [&](std::size_t j) {
-    const auto& statuses = j < first.basis.columns.size() ? first.basis.columns : first.basis.rows;
-    return statuses[j < first.basis.columns.size() ? j : j - first.basis.columns.size()] ==
-           plumb::simplex::VarStatus::basic;
-  };
+  std::vector<plumb::simplex::VarStatus> statuses = first.basis.columns;  // per variable, as the weights
+  statuses.insert(statuses.end(), first.basis.rows.begin(), first.basis.rows.end());
+  auto basic = [&](std::size_t j) { return statuses[j] == plumb::simplex::VarStatus::basic; };
   bool any_other_than_one = false;
   for (std::size_t j = 0; j < variables; ++j) {
     EXPECT_EQ(first.dual_weights[j] > 0, basic(j)) << "variable " << j;
