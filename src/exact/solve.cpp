@@ -10,6 +10,7 @@
 
 #include <algorithm>
 #include <chrono>
+#include <functional>
 #include <limits>
 #include <optional>
 
@@ -65,18 +66,38 @@ bool certify_with_corrections(RationalEngine& engine, const model::Model& model,
 
 namespace {
 
+// A search from scratch, for when a warm float search ends infeasible at a row of B^-1 that
+// refinement cannot make exact: a cold search often ends at another row that it can (gran,
+// ../shared/netlib-infeas, under the feasibility goal with row 1 or 106 freed on a session: the
+// least-infeasibility LP took 1.4 s, a cold search and its row 50 ms).  Searched once, on demand.
+struct ColdRetry {
+  std::function<simplex::FloatResult()> search;
+  std::optional<simplex::FloatResult> found;
+  double seconds = 0;
+  bool used = false;  // its row proved the outcome
+};
+
 // The exact engine's part of run_exact.
 Solution engine_solution(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
-                         const simplex::FloatResult* found) {
+                         const simplex::FloatResult* found, ColdRetry* retry) {
   SolveStats correction_stats;
   detail::RationalEngine engine(model, options.budget, &options.progress);
   bool repaired = false;
   const char* proof = "rational basis";  // start_from's exact LU, then no pivot
-  bool row_refined = found && found->status == simplex::FloatStatus::infeasible && !options.few_multipliers &&
-                     options.fault != Fault::row_not_refined &&
-                     options.fault != Fault::auxiliary_not_refined &&
-                     options.fault != Fault::auxiliary_search_fails &&
+  const bool may_refine_row = found && found->status == simplex::FloatStatus::infeasible &&
+                              !options.few_multipliers && options.fault != Fault::row_not_refined &&
+                              options.fault != Fault::auxiliary_not_refined &&
+                              options.fault != Fault::auxiliary_search_fails;
+  bool row_refined = may_refine_row && !(retry && options.fault == Fault::warm_row_not_refined) &&
                      engine.certify_infeasible_row_by_refinement(*start, found->ray_variable);
+  if (may_refine_row && !row_refined && retry) {
+    auto clock = std::chrono::steady_clock::now();
+    retry->found = retry->search();
+    retry->seconds = seconds_since(clock);
+    row_refined = retry->used =
+        retry->found->status == simplex::FloatStatus::infeasible &&
+        engine.certify_infeasible_row_by_refinement(retry->found->basis, retry->found->ray_variable);
+  }
   std::optional<Solution> proven;
   if (found && found->status == simplex::FloatStatus::infeasible && !row_refined)
     proven = detail::prove_infeasible(model, options, *start, correction_stats);
@@ -85,7 +106,7 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
   if (proven) return std::move(*proven);
 
   if (row_refined) {
-    proof = "refined row of the inverse";
+    proof = retry && retry->used ? "refined row of the inverse, cold search" : "refined row of the inverse";
   } else if (!start) {
     engine.start_from_logicals();
   } else if (found && (found->status == simplex::FloatStatus::infeasible ||
@@ -123,7 +144,7 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
 // by refinement, infeasibility from the row of B^{-1} it names (by refinement, else by the
 // least-infeasibility LP, else by rational LU), unboundedness along its edge.
 Solution run_exact(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
-                   const simplex::FloatResult* found = nullptr) {
+                   const simplex::FloatResult* found = nullptr, ColdRetry* retry = nullptr) {
   auto clock = std::chrono::steady_clock::now();
   if (options.progress) {  // factorizing the start can take a while before the first pivot
     double nothing_yet = std::numeric_limits<double>::quiet_NaN();
@@ -132,12 +153,13 @@ Solution run_exact(const model::Model& model, const SolveOptions& options, const
   }
   Solution solution;
   try {
-    solution = engine_solution(model, options, start, found);
+    solution = engine_solution(model, options, start, found, retry);
   } catch (const run::Stopped& stop) {  // inside a factorization or a refinement
     solution.stop_reason = stop.reason;
     solution.stats.phase = stop.progress;
   }
-  (start ? solution.stats.certify_seconds : solution.stats.exact_seconds) = seconds_since(clock);
+  (start ? solution.stats.certify_seconds : solution.stats.exact_seconds) =
+      seconds_since(clock) - (retry ? retry->seconds : 0);
   return solution;
 }
 
@@ -218,7 +240,27 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
     solution.stats.fell_back = true;
     solution.stats.float_note = found.note;
   } else {
-    solution = run_exact(model, options, &found.basis, &found);
+    ColdRetry retry;
+    if (start.basis)
+      retry.search = [&] {
+        simplex::FloatOptions cold = search;
+        cold.warm_start = nullptr;
+        cold.warm_weights = nullptr;
+        cold.warm_start_from_zero_costs = false;
+        cold.cost_search_start = nullptr;
+        cold.cost_search_weights = nullptr;
+        return start.float_model ? simplex::solve_float(start.float_model(), cold)
+                                 : simplex::solve_float(model, cold);
+      };
+    solution = run_exact(model, options, &found.basis, &found, retry.search ? &retry : nullptr);
+    if (retry.found) {  // its iterations count; its basis, when used, is where the next search starts
+      float_seconds += retry.seconds;
+      found.iterations += retry.found->iterations;
+      if (retry.used) {
+        found.dual_weights = std::move(retry.found->dual_weights);
+        found.zero_cost_search = retry.found->zero_cost_search;
+      }
+    }
   }
   if (start.weights_found) *start.weights_found = std::move(found.dual_weights);
   solution.stats.float_seconds = float_seconds;

@@ -208,6 +208,31 @@ TEST(ExactSession, AnEarlierProofOfInfeasibilityAnswersWhileItsLimitsStand) {
   expect_proof(false, Outcome::optimal);
 }
 
+TEST(ExactSession, AWarmSearchsUnprovenRowGivesWayToAColdSearchs) {
+  auto model = bakery();
+  auto edited = model;
+  edited.source.sha256.clear();
+  edited.rows[2].lower = q(60);  // infeasible by promise and flour
+  SolveOptions warm_row_unproven;
+  warm_row_unproven.fault = Fault::warm_row_not_refined;
+
+  // A first solve searches cold: the fault passes it by.
+  Session cold(model);
+  cold.set_row_lower(2, q(60));
+  EXPECT_EQ(cold.solve(warm_row_unproven).solution.stats.proof, "refined row of the inverse");
+
+  Session session(model);
+  ASSERT_EQ(session.solve().solution.outcome, Outcome::optimal);  // the basis the next search starts from
+  session.set_row_lower(2, q(60));
+  CertifiedSolution result = session.solve(warm_row_unproven);
+  ASSERT_TRUE(result.certified()) << result.verdict.failure;
+  EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
+  EXPECT_EQ(result.solution.stats.proof, "refined row of the inverse, cold search");
+  EXPECT_EQ(result.solution.stats.auxiliary_iterations, 0);  // no least-infeasibility LP
+  check::Verdict against_edited = check::verify(edited, result.certificate);
+  EXPECT_TRUE(against_edited.valid) << against_edited.failure;
+}
+
 TEST(ExactSession, SettingTheOriginalValueIsNoEdit) {
   auto model = bakery();
   Session session(model);
