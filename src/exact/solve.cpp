@@ -66,11 +66,13 @@ bool certify_with_corrections(RationalEngine& engine, const model::Model& model,
 
 namespace {
 
-// A search from scratch, for when a warm float search ends infeasible at a row of B^-1 that
-// refinement cannot make exact: a cold search often ends at another row that it can (gran,
-// ../shared/netlib-infeas, under the feasibility goal with row 1 or 106 freed on a session: the
-// least-infeasibility LP took 1.4 s, a cold search and its row 50 ms).  Searched once, on demand.
-struct ColdRetry {
+// A float search from another start, for when the first ends infeasible at a row of B^-1 that
+// refinement cannot make exact: the second often ends at another row that it can.  gran
+// (../shared/netlib-infeas) under the feasibility goal, on a session with row 1 of its proof
+// freed: the least-infeasibility LP took 1.4 s after a warm search, a cold search and its row
+// 75 ms; solved cold with row 419 freed, 1.3 s after the crash basis's search, a search from the
+// logical basis and its row 0.14 s.  Searched once, on demand.
+struct SecondSearch {
   std::function<simplex::FloatResult()> search;
   std::optional<simplex::FloatResult> found;
   double seconds = 0;
@@ -79,7 +81,7 @@ struct ColdRetry {
 
 // The exact engine's part of run_exact.
 Solution engine_solution(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
-                         const simplex::FloatResult* found, ColdRetry* retry) {
+                         const simplex::FloatResult* found, SecondSearch* second) {
   SolveStats correction_stats;
   detail::RationalEngine engine(model, options.budget, &options.progress);
   bool repaired = false;
@@ -88,15 +90,15 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
                               !options.few_multipliers && options.fault != Fault::row_not_refined &&
                               options.fault != Fault::auxiliary_not_refined &&
                               options.fault != Fault::auxiliary_search_fails;
-  bool row_refined = may_refine_row && !(retry && options.fault == Fault::warm_row_not_refined) &&
+  bool row_refined = may_refine_row && options.fault != Fault::first_row_not_refined &&
                      engine.certify_infeasible_row_by_refinement(*start, found->ray_variable);
-  if (may_refine_row && !row_refined && retry) {
+  if (may_refine_row && !row_refined && second) {
     auto clock = std::chrono::steady_clock::now();
-    retry->found = retry->search();
-    retry->seconds = seconds_since(clock);
-    row_refined = retry->used =
-        retry->found->status == simplex::FloatStatus::infeasible &&
-        engine.certify_infeasible_row_by_refinement(retry->found->basis, retry->found->ray_variable);
+    second->found = second->search();
+    second->seconds = seconds_since(clock);
+    row_refined = second->used =
+        second->found->status == simplex::FloatStatus::infeasible &&
+        engine.certify_infeasible_row_by_refinement(second->found->basis, second->found->ray_variable);
   }
   std::optional<Solution> proven;
   if (found && found->status == simplex::FloatStatus::infeasible && !row_refined)
@@ -106,7 +108,8 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
   if (proven) return std::move(*proven);
 
   if (row_refined) {
-    proof = retry && retry->used ? "refined row of the inverse, cold search" : "refined row of the inverse";
+    proof =
+        second && second->used ? "refined row of the inverse, second search" : "refined row of the inverse";
   } else if (!start) {
     engine.start_from_logicals();
   } else if (found && (found->status == simplex::FloatStatus::infeasible ||
@@ -144,7 +147,7 @@ Solution engine_solution(const model::Model& model, const SolveOptions& options,
 // by refinement, infeasibility from the row of B^{-1} it names (by refinement, else by the
 // least-infeasibility LP, else by rational LU), unboundedness along its edge.
 Solution run_exact(const model::Model& model, const SolveOptions& options, const simplex::Basis* start,
-                   const simplex::FloatResult* found = nullptr, ColdRetry* retry = nullptr) {
+                   const simplex::FloatResult* found = nullptr, SecondSearch* second = nullptr) {
   auto clock = std::chrono::steady_clock::now();
   if (options.progress) {  // factorizing the start can take a while before the first pivot
     double nothing_yet = std::numeric_limits<double>::quiet_NaN();
@@ -153,13 +156,13 @@ Solution run_exact(const model::Model& model, const SolveOptions& options, const
   }
   Solution solution;
   try {
-    solution = engine_solution(model, options, start, found, retry);
+    solution = engine_solution(model, options, start, found, second);
   } catch (const run::Stopped& stop) {  // inside a factorization or a refinement
     solution.stop_reason = stop.reason;
     solution.stats.phase = stop.progress;
   }
   (start ? solution.stats.certify_seconds : solution.stats.exact_seconds) =
-      seconds_since(clock) - (retry ? retry->seconds : 0);
+      seconds_since(clock) - (second ? second->seconds : 0);
   return solution;
 }
 
@@ -240,25 +243,28 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
     solution.stats.fell_back = true;
     solution.stats.float_note = found.note;
   } else {
-    ColdRetry retry;
-    if (start.basis)
-      retry.search = [&] {
-        simplex::FloatOptions cold = search;
-        cold.warm_start = nullptr;
-        cold.warm_weights = nullptr;
-        cold.warm_start_from_zero_costs = false;
-        cold.cost_search_start = nullptr;
-        cold.cost_search_weights = nullptr;
-        return start.float_model ? simplex::solve_float(start.float_model(), cold)
-                                 : simplex::solve_float(model, cold);
-      };
-    solution = run_exact(model, options, &found.basis, &found, retry.search ? &retry : nullptr);
-    if (retry.found) {  // its iterations count; its basis, when used, is where the next search starts
-      float_seconds += retry.seconds;
-      found.iterations += retry.found->iterations;
-      if (retry.used) {
-        found.dual_weights = std::move(retry.found->dual_weights);
-        found.zero_cost_search = retry.found->zero_cost_search;
+    SecondSearch second;  // from scratch after a warm start, else from the other cold start
+    second.search = [&] {
+      simplex::FloatOptions other = search;
+      if (start.basis) {
+        other.warm_start = nullptr;
+        other.warm_weights = nullptr;
+        other.warm_start_from_zero_costs = false;
+        other.cost_search_start = nullptr;
+        other.cost_search_weights = nullptr;
+      } else {
+        other.crash = !search.crash;
+      }
+      return start.float_model ? simplex::solve_float(start.float_model(), other)
+                               : simplex::solve_float(model, other);
+    };
+    solution = run_exact(model, options, &found.basis, &found, &second);
+    if (second.found) {  // its iterations count; its basis, when used, is where the next search starts
+      float_seconds += second.seconds;
+      found.iterations += second.found->iterations;
+      if (second.used) {
+        found.dual_weights = std::move(second.found->dual_weights);
+        found.zero_cost_search = second.found->zero_cost_search;
       }
     }
   }

@@ -208,29 +208,32 @@ TEST(ExactSession, AnEarlierProofOfInfeasibilityAnswersWhileItsLimitsStand) {
   expect_proof(false, Outcome::optimal);
 }
 
-TEST(ExactSession, AWarmSearchsUnprovenRowGivesWayToAColdSearchs) {
+TEST(ExactSession, AnUnprovenProofRowGivesWayToASecondSearch) {
   auto model = bakery();
   auto edited = model;
   edited.source.sha256.clear();
   edited.rows[2].lower = q(60);  // infeasible by promise and flour
-  SolveOptions warm_row_unproven;
-  warm_row_unproven.fault = Fault::warm_row_not_refined;
+  SolveOptions first_row_unproven;
+  first_row_unproven.fault = Fault::first_row_not_refined;
+  auto expect_second_search = [&](const CertifiedSolution& result) {
+    ASSERT_TRUE(result.certified()) << result.verdict.failure;
+    EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
+    EXPECT_EQ(result.solution.stats.proof, "refined row of the inverse, second search");
+    EXPECT_EQ(result.solution.stats.auxiliary_iterations, 0);  // no least-infeasibility LP
+    check::Verdict against_edited = check::verify(edited, result.certificate);
+    EXPECT_TRUE(against_edited.valid) << against_edited.failure;
+  };
 
-  // A first solve searches cold: the fault passes it by.
+  // Cold: the second search starts from the other cold start.
   Session cold(model);
   cold.set_row_lower(2, q(60));
-  EXPECT_EQ(cold.solve(warm_row_unproven).solution.stats.proof, "refined row of the inverse");
+  expect_second_search(cold.solve(first_row_unproven));
 
+  // Warm: the second search starts from scratch.
   Session session(model);
   ASSERT_EQ(session.solve().solution.outcome, Outcome::optimal);  // the basis the next search starts from
   session.set_row_lower(2, q(60));
-  CertifiedSolution result = session.solve(warm_row_unproven);
-  ASSERT_TRUE(result.certified()) << result.verdict.failure;
-  EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
-  EXPECT_EQ(result.solution.stats.proof, "refined row of the inverse, cold search");
-  EXPECT_EQ(result.solution.stats.auxiliary_iterations, 0);  // no least-infeasibility LP
-  check::Verdict against_edited = check::verify(edited, result.certificate);
-  EXPECT_TRUE(against_edited.valid) << against_edited.failure;
+  expect_second_search(session.solve(first_row_unproven));
 }
 
 TEST(ExactSession, SettingTheOriginalValueIsNoEdit) {
@@ -486,4 +489,32 @@ TEST(ExactSession, TheSearchOnTheCostsResumesWhereItLastEnded) {
 }
 
 }  // namespace
+// gran (../shared/netlib-infeas) searched for a feasible point with one row of its proof freed
+// stays infeasible, and some searches end at a row of B^-1 that refinement cannot make exact: from
+// the last basis with row 1 freed, and cold from the crash basis with row 419 freed (measured when
+// this test was written).  A second search from another start (from scratch, or from the logical
+// basis) ends at a row that refines; before it, each took the least-infeasibility LP (1.3-1.4 s).
+TEST(NetlibSession, AProofRowThatWillNotRefineGivesWayToASecondSearch) {
+  auto folder = test::shared_dir / "netlib-infeas";
+  if (!test::shared_folder_present(folder)) GTEST_SKIP() << folder << " missing";
+  auto model = model::read_model((folder / "gran.mps.gz").string());
+  auto expect_row_proof = [](const CertifiedSolution& result) {
+    ASSERT_TRUE(result.certified()) << result.verdict.failure;
+    EXPECT_EQ(result.solution.outcome, Outcome::infeasible);
+    EXPECT_NE(result.solution.stats.proof, "least infeasibility");
+  };
+  Session session(model);
+  session.set_goal(Goal::feasibility);
+  ASSERT_EQ(session.solve().solution.outcome, Outcome::infeasible);  // Netlib lp/infeas readme
+  session.set_row_lower(1, std::nullopt);
+  session.set_row_upper(1, std::nullopt);
+  expect_row_proof(session.solve());
+
+  Session cold(model);
+  cold.set_goal(Goal::feasibility);
+  cold.set_row_lower(419, std::nullopt);
+  cold.set_row_upper(419, std::nullopt);
+  expect_row_proof(cold.solve());
+}
+
 }  // namespace plumb::exact

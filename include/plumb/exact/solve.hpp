@@ -44,8 +44,9 @@ enum class Fault {
                            // holds too, so that the least-infeasibility LP is reached)
   row_not_refined,         // the float search's infeasible row is not proven by refinement: the
                            // least-infeasibility LP proves infeasibility instead
-  warm_row_not_refined,    // as row_not_refined, for a float search that started from a basis only:
-                           // a cold search's row is tried before the least-infeasibility LP
+  first_row_not_refined,   // the first float search's infeasible row is not proven by refinement:
+                           // a second search from another start is tried before the
+                           // least-infeasibility LP
   auxiliary_search_fails,  // the float search on an auxiliary LP reports failure where it stopped:
                            // its basis is certified or pivoted from all the same (and
                            // row_not_refined holds too)
@@ -89,8 +90,9 @@ struct SolveStats {
   std::string float_note;  // why the float phase (or a float search on an auxiliary LP) failed, when it did
   std::string phase;           // the exact phase last run (how far a stopped solve got)
   // How the outcome was proven (docs/solving.md): "refined basis", "refined row of the inverse"
-  // (on a session also "refined row of the inverse, cold search"), "least infeasibility",
-  // "feasible point and ray", "row of the inverse", "edge of the basis", "exact pivots", ...;
+  // ("refined row of the inverse, second search" when the search from another start gave the row),
+  // "least infeasibility", "feasible point and ray", "row of the inverse", "edge of the basis",
+  // "exact pivots", ...;
   // "earlier proof" when a session's last proof of infeasibility still holds under its edits.
   std::string proof;
 };
