@@ -243,7 +243,10 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
     solution.stats.fell_back = true;
     solution.stats.float_note = found.note;
   } else {
-    SecondSearch second;  // from scratch after a warm start, else from the other cold start
+    // From scratch after a warm start.  After a cold one, the search on the costs alone when the
+    // zero-cost search gave the row (from the logical basis it would end there again), else both
+    // searches from the other cold start.
+    SecondSearch second;
     second.search = [&] {
       simplex::FloatOptions other = search;
       if (start.basis) {
@@ -252,6 +255,8 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
         other.warm_start_from_zero_costs = false;
         other.cost_search_start = nullptr;
         other.cost_search_weights = nullptr;
+      } else if (found.zero_cost_search) {
+        other.feasibility_search = false;
       } else {
         other.crash = !search.crash;
       }

@@ -224,10 +224,19 @@ TEST(ExactSession, AnUnprovenProofRowGivesWayToASecondSearch) {
     EXPECT_TRUE(against_edited.valid) << against_edited.failure;
   };
 
-  // Cold: the second search starts from the other cold start.
+  // Cold, on the costs: the zero-cost search, beside the search on the costs on two cores, gives
+  // the first row; the second search is the search on the costs alone.
   Session cold(model);
   cold.set_row_lower(2, q(60));
-  expect_second_search(cold.solve(first_row_unproven));
+  CertifiedSolution cold_result = cold.solve(first_row_unproven);
+  expect_second_search(cold_result);
+  EXPECT_FALSE(cold_result.solution.stats.zero_cost_search);
+
+  // Cold, under the feasibility goal (no zero-cost search beside it): from the other cold start.
+  Session feasibility(model);
+  feasibility.set_goal(Goal::feasibility);
+  feasibility.set_row_lower(2, q(60));
+  expect_second_search(feasibility.solve(first_row_unproven));
 
   // Warm: the second search starts from scratch.
   Session session(model);
@@ -488,7 +497,6 @@ TEST(ExactSession, TheSearchOnTheCostsResumesWhereItLastEnded) {
   EXPECT_EQ(restored.solution.stats.float_iterations, 0);
 }
 
-}  // namespace
 // gran (../shared/netlib-infeas) searched for a feasible point with one row of its proof freed
 // stays infeasible, and some searches end at a row of B^-1 that refinement cannot make exact: from
 // the last basis with row 1 freed, and cold from the crash basis with row 419 freed (measured when
@@ -516,5 +524,7 @@ TEST(NetlibSession, AProofRowThatWillNotRefineGivesWayToASecondSearch) {
   cold.set_row_upper(419, std::nullopt);
   expect_row_proof(cold.solve());
 }
+
+}  // namespace
 
 }  // namespace plumb::exact
