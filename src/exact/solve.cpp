@@ -244,8 +244,9 @@ Solution detail::solve_from(const model::Model& model, const SolveOptions& optio
     solution.stats.float_note = found.note;
   } else {
     // From scratch after a warm start.  After a cold one, the search on the costs alone when the
-    // zero-cost search gave the row (from the logical basis it would end there again), else both
-    // searches from the other cold start.
+    // zero-cost search gave the row (from the logical basis it would end there again), else the
+    // search on the costs from the other cold start (the zero-cost search starts at the logical
+    // basis either way).
     SecondSearch second;
     second.search = [&] {
       simplex::FloatOptions other = search;
