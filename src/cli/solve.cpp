@@ -83,8 +83,8 @@ int run_solve(const SolveCommandOptions& options) {
     return exit_certificate_invalid;
   }
   // The certificate's text and the JSON result spell out the same long fractions (30 MB each on
-  // maros-r7): built on two cores (maros-r7 and pilot87 end 0.35 s sooner), and nothing is shown
-  // before the certificate is on disk.
+  // maros-r7): built on two cores (maros-r7 and pilot87 end 0.3 to 0.6 s sooner), and nothing is
+  // shown before the certificate is on disk.
   std::future<std::string> certificate_text;
   if (!options.certificate_path.empty())
     certificate_text =
